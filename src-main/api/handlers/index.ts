@@ -1,0 +1,14 @@
+import type { ChannelHandlers } from '../dispatcher.js';
+import { createPlanHandlers } from './planHandlers.js';
+
+/** Where the handlers keep and find data; one per app instance. */
+export interface HandlerContext {
+  dataDirectory: string;
+}
+
+/** Every channel's handler, for either adapter. */
+export function createHandlers(_context: HandlerContext): ChannelHandlers {
+  return {
+    ...createPlanHandlers(),
+  };
+}

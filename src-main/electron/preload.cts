@@ -1,0 +1,15 @@
+/**
+ * Runs sandboxed before the renderer: exposes exactly the channel contract as
+ * `window.tallyline`, one method per channel, never ipcRenderer itself.
+ */
+import electron = require('electron');
+
+const { contextBridge, ipcRenderer } = electron;
+
+const prefix = 'tallyline:';
+const names = ipcRenderer.sendSync(`${prefix}list-channels`) as string[];
+const methods: Record<string, (payload: unknown) => Promise<unknown>> = {};
+for (const name of names) {
+  methods[name] = (payload: unknown) => ipcRenderer.invoke(prefix + name, payload);
+}
+contextBridge.exposeInMainWorld('tallyline', Object.freeze(methods));

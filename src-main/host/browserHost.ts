@@ -1,0 +1,102 @@
+import { randomBytes } from 'node:crypto';
+import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import type { Dispatch } from '../api/dispatcher.js';
+import { contentSecurityPolicy } from './contentSecurityPolicy.js';
+import { checkAuthority, checkToken } from './requestGuard.js';
+import { readStaticFile } from './staticFiles.js';
+
+export interface BrowserHostOptions {
+  /** The built renderer (index.html and its assets). */
+  rendererRoot: string;
+  dispatch: Dispatch;
+  /** 0 picks a free port. */
+  port?: number;
+  /** Fixed only in tests; otherwise random per launch. */
+  token?: string;
+}
+
+export interface BrowserHost {
+  /** The address to open, with the token in the fragment (never sent to the server or logged). */
+  url: string;
+  port: number;
+  token: string;
+  close(): Promise<void>;
+}
+
+const maximumBodyBytes = 1_000_000;
+const apiPrefix = '/api/';
+
+/**
+ * Serves the renderer and the channel contract over HTTP on 127.0.0.1 only: `POST /api/<channel>`
+ * with a JSON body answers with the channel's result as JSON. No CORS headers are ever sent.
+ */
+export async function startBrowserHost(options: BrowserHostOptions): Promise<BrowserHost> {
+  const token = options.token ?? randomBytes(24).toString('hex');
+  const server = createServer((request, response) => {
+    handle(request, response).catch((error: unknown) => {
+      send(response, 500, 'application/json', JSON.stringify({ ok: false, code: 'internal', message: String(error) }));
+    });
+  });
+
+  async function handle(request: IncomingMessage, response: ServerResponse): Promise<void> {
+    const authority = checkAuthority(request, port);
+    if (!authority.allowed) return send(response, authority.status, 'text/plain', authority.reason);
+    const path = new URL(request.url ?? '/', 'http://127.0.0.1').pathname;
+    if (path.startsWith(apiPrefix)) return serveChannel(request, response, path.slice(apiPrefix.length));
+    if (request.method !== 'GET' && request.method !== 'HEAD') return send(response, 405, 'text/plain', 'Method not allowed.');
+    const file = await readStaticFile(options.rendererRoot, path);
+    if (!file) return send(response, 404, 'text/plain', 'Not found.');
+    send(response, 200, file.contentType, file.body);
+  }
+
+  async function serveChannel(request: IncomingMessage, response: ServerResponse, channel: string): Promise<void> {
+    const tokenVerdict = checkToken(request, token);
+    if (!tokenVerdict.allowed) return send(response, tokenVerdict.status, 'text/plain', tokenVerdict.reason);
+    if (request.method !== 'POST') return send(response, 405, 'text/plain', 'Channels take POST.');
+    const body = await readBody(request);
+    if (body === null) return send(response, 413, 'text/plain', `A request body may be at most ${maximumBodyBytes} bytes.`);
+    let payload: unknown;
+    try {
+      payload = body.length === 0 ? undefined : JSON.parse(body);
+    } catch {
+      return send(response, 400, 'application/json', JSON.stringify({ ok: false, code: 'invalid-payload', message: 'The request body is not JSON.' }));
+    }
+    const result = await options.dispatch(decodeURIComponent(channel), payload);
+    send(response, 200, 'application/json', JSON.stringify(result));
+  }
+
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port ?? 0, '127.0.0.1', () => resolve());
+  });
+  const port = (server.address() as AddressInfo).port;
+  return {
+    url: `http://127.0.0.1:${port}/#token=${token}`,
+    port,
+    token,
+    close: () => new Promise((resolve) => server.close(() => resolve())),
+  };
+}
+
+function send(response: ServerResponse, status: number, contentType: string, body: string | Buffer): void {
+  response.writeHead(status, {
+    'content-type': contentType,
+    'content-security-policy': contentSecurityPolicy,
+    'x-content-type-options': 'nosniff',
+    'referrer-policy': 'no-referrer',
+    'cache-control': 'no-store',
+  });
+  response.end(body);
+}
+
+async function readBody(request: IncomingMessage): Promise<string | null> {
+  const chunks: Buffer[] = [];
+  let size = 0;
+  for await (const chunk of request) {
+    size += (chunk as Buffer).length;
+    if (size > maximumBodyBytes) return null;
+    chunks.push(chunk as Buffer);
+  }
+  return Buffer.concat(chunks).toString('utf8');
+}

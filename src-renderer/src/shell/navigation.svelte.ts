@@ -1,0 +1,25 @@
+/** Which place of the job is showing; kept in the address fragment so a reload stays put. */
+export const places = [
+  { id: 'plan', label: 'Plan', hint: 'Design a test before the run' },
+] as const;
+
+export type PlaceId = (typeof places)[number]['id'];
+
+function placeFromHash(): PlaceId {
+  const wanted = window.location.hash.replace(/^#\/?/, '').split('/')[0];
+  return places.find((place) => place.id === wanted)?.id ?? 'plan';
+}
+
+class Navigation {
+  current = $state<PlaceId>(placeFromHash());
+
+  go(place: PlaceId): void {
+    this.current = place;
+    history.replaceState(null, '', `#/${place}`);
+  }
+}
+
+export const navigation = new Navigation();
+window.addEventListener('hashchange', () => {
+  navigation.current = placeFromHash();
+});
