@@ -1,0 +1,80 @@
+import { beforeAll, describe, expect, it, vi } from 'vitest';
+
+// Electron's runtime is not loaded in tests (importing it would try a download); the shell is
+// checked against a recording fake of the few APIs it uses.
+const recorded = vi.hoisted(() => ({
+  windowOptions: [] as Array<Record<string, any>>,
+  webContentsListeners: new Map<string, (...args: any[]) => void>(),
+  windowOpenHandler: null as null | ((details: { url: string }) => { action: string }),
+  handledProtocols: [] as string[],
+  invokeChannels: [] as string[],
+  loadedUrls: [] as string[],
+  openedExternally: [] as string[],
+}));
+
+vi.mock('electron', () => {
+  class BrowserWindow {
+    static getAllWindows = () => [];
+    webContents = {
+      on: (event: string, listener: (...args: any[]) => void) => recorded.webContentsListeners.set(event, listener),
+      setWindowOpenHandler: (handler: (details: { url: string }) => { action: string }) => (recorded.windowOpenHandler = handler),
+    };
+    constructor(options: Record<string, any>) {
+      recorded.windowOptions.push(options);
+    }
+    once() {}
+    loadURL(url: string) {
+      recorded.loadedUrls.push(url);
+      return Promise.resolve();
+    }
+  }
+  const electron = {
+    app: { requestSingleInstanceLock: () => true, on: () => undefined, whenReady: () => Promise.resolve(), quit: vi.fn(), exit: vi.fn() },
+    BrowserWindow,
+    ipcMain: { handle: (channel: string) => recorded.invokeChannels.push(channel), on: () => undefined },
+    Menu: { setApplicationMenu: () => undefined, buildFromTemplate: (template: unknown) => template },
+    protocol: { registerSchemesAsPrivileged: () => undefined, handle: (scheme: string) => recorded.handledProtocols.push(scheme) },
+    shell: { openExternal: (url: string) => recorded.openedExternally.push(url) },
+  };
+  return { ...electron, default: electron };
+});
+
+beforeAll(async () => {
+  process.env.TALLYLINE_DATA = '/tmp/tallyline-electron-shell-test';
+  await import('../../src-main/electron/main.js');
+  await new Promise((resolve) => setTimeout(resolve, 0));
+});
+
+describe('the Electron shell', () => {
+  it('opens one window with context isolation, the sandbox and no Node integration', () => {
+    expect(recorded.windowOptions).toHaveLength(1);
+    expect(recorded.windowOptions[0].webPreferences).toMatchObject({ contextIsolation: true, sandbox: true, nodeIntegration: false, webSecurity: true });
+    expect(recorded.windowOptions[0].webPreferences.preload).toMatch(/preload\.cjs$/);
+  });
+
+  it('serves the renderer from its own protocol, not file://', () => {
+    expect(recorded.handledProtocols).toEqual(['tallyline']);
+    expect(recorded.loadedUrls).toEqual(['tallyline://app/index.html']);
+  });
+
+  it('blocks navigation away from the app', () => {
+    const willNavigate = recorded.webContentsListeners.get('will-navigate')!;
+    const away = { preventDefault: vi.fn() };
+    willNavigate(away, 'https://attacker.example/');
+    expect(away.preventDefault).toHaveBeenCalled();
+    const inside = { preventDefault: vi.fn() };
+    willNavigate(inside, 'tallyline://app/index.html');
+    expect(inside.preventDefault).not.toHaveBeenCalled();
+  });
+
+  it('denies every new window', () => {
+    expect(recorded.windowOpenHandler!({ url: 'https://example.org/standard' })).toEqual({ action: 'deny' });
+    expect(recorded.windowOpenHandler!({ url: 'tallyline://app/index.html' })).toEqual({ action: 'deny' });
+    expect(recorded.openedExternally).toEqual(['https://example.org/standard']);
+  });
+
+  it('serves every channel of the contract on IPC', async () => {
+    const { channelNames } = await import('../../src-main/api/contract.js');
+    expect(recorded.invokeChannels.sort()).toEqual(channelNames.map((name) => `tallyline:${name}`).sort());
+  });
+});

@@ -1,0 +1,98 @@
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { request } from 'node:http';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createDispatcher } from '../../src-main/api/dispatcher.js';
+import { createHandlers } from '../../src-main/api/handlers/index.js';
+import { startBrowserHost, type BrowserHost } from '../../src-main/host/browserHost.js';
+
+let host: BrowserHost;
+let rendererRoot: string;
+
+beforeAll(async () => {
+  rendererRoot = await mkdtemp(join(tmpdir(), 'tallyline-host-'));
+  await writeFile(join(rendererRoot, 'index.html'), '<!doctype html><title>Tallyline</title>');
+  const dispatch = createDispatcher(createHandlers({ dataDirectory: rendererRoot }));
+  host = await startBrowserHost({ rendererRoot, dispatch, token: 'a'.repeat(48) });
+});
+
+afterAll(async () => {
+  await host.close();
+  await rm(rendererRoot, { recursive: true, force: true });
+});
+
+/** A raw HTTP request, so the Host and Origin headers are exactly what a test sets. */
+function call(path: string, options: { method?: string; headers?: Record<string, string>; body?: string } = {}) {
+  return new Promise<{ status: number; body: string; headers: Record<string, unknown> }>((resolve, reject) => {
+    const outgoing = request(
+      { host: '127.0.0.1', port: host.port, path, method: options.method ?? 'GET', headers: { host: `127.0.0.1:${host.port}`, ...options.headers } },
+      (response) => {
+        let body = '';
+        response.on('data', (chunk) => (body += chunk));
+        response.on('end', () => resolve({ status: response.statusCode ?? 0, body, headers: response.headers }));
+      },
+    );
+    outgoing.on('error', reject);
+    outgoing.end(options.body);
+  });
+}
+
+const authorized = { authorization: `Bearer ${'a'.repeat(48)}`, 'content-type': 'application/json' };
+const nistExample = JSON.stringify({ model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 });
+
+describe('the browser host', () => {
+  it('listens on 127.0.0.1 and prints an address carrying the token in the fragment', () => {
+    expect(host.url).toBe(`http://127.0.0.1:${host.port}/#token=${'a'.repeat(48)}`);
+  });
+
+  it('serves the renderer page with a strict content security policy and no CORS header', async () => {
+    const response = await call('/');
+    expect(response.status).toBe(200);
+    expect(response.body).toContain('<title>Tallyline</title>');
+    expect(response.headers['content-security-policy']).toContain("script-src 'self'");
+    expect(response.headers['access-control-allow-origin']).toBeUndefined();
+  });
+
+  it('refuses a channel request without the token with 401', async () => {
+    const response = await call('/api/plan.limits', { method: 'POST', body: nistExample });
+    expect(response.status).toBe(401);
+  });
+
+  it('refuses a channel request with a wrong token with 401', async () => {
+    const response = await call('/api/plan.limits', { method: 'POST', headers: { authorization: `Bearer ${'b'.repeat(48)}` }, body: nistExample });
+    expect(response.status).toBe(401);
+  });
+
+  it('answers a channel request with the token as JSON', async () => {
+    const response = await call('/api/plan.limits', { method: 'POST', headers: authorized, body: nistExample });
+    expect(response.status).toBe(200);
+    expect(JSON.parse(response.body)).toMatchObject({ ok: true, value: { boundaries: { lnA: expect.any(Number) } } });
+  });
+
+  it('refuses another Host name (a DNS-rebinding page) with 403', async () => {
+    const response = await call('/', { headers: { host: `attacker.example:${host.port}` } });
+    expect(response.status).toBe(403);
+  });
+
+  it('refuses a request whose Origin is another site with 403, even with the token', async () => {
+    const response = await call('/api/plan.limits', { method: 'POST', headers: { ...authorized, origin: 'http://attacker.example' }, body: nistExample });
+    expect(response.status).toBe(403);
+  });
+
+  it('answers a body that is not JSON with an invalid-payload result', async () => {
+    const response = await call('/api/plan.limits', { method: 'POST', headers: authorized, body: '{not json' });
+    expect(response.status).toBe(400);
+    expect(JSON.parse(response.body)).toMatchObject({ ok: false, code: 'invalid-payload' });
+  });
+
+  it('does not serve files outside the renderer folder', async () => {
+    const response = await call('/..%2f..%2fetc%2fpasswd');
+    expect(response.body).not.toContain('root:');
+  });
+
+  it('answers a missing asset with 404 and an unknown screen path with the page', async () => {
+    expect((await call('/assets/missing.js')).status).toBe(404);
+    expect((await call('/inspect')).body).toContain('<title>Tallyline</title>');
+  });
+});
