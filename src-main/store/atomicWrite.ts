@@ -6,7 +6,7 @@
  * then fsync the folder so the rename itself survives a power cut (skipped where the platform
  * refuses to open a folder, i.e. Windows).
  */
-import { open, rename, rm } from 'node:fs/promises';
+import { link, open, rename, rm } from 'node:fs/promises';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 
@@ -24,9 +24,29 @@ export async function writeFileAtomic(
   contents: string | Uint8Array,
   options: AtomicWriteOptions = {},
 ): Promise<void> {
+  const renameFile = options.rename ?? rename;
+  await placeSyncedTempFile(filePath, contents, (tempPath) => renameWithRetry(renameFile, tempPath, filePath));
+}
+
+/**
+ * Write a file that must never be replaced once it exists (a plan version). Same steps as
+ * writeFileAtomic, but the temp file is hard-linked into place, which fails with EEXIST instead of
+ * overwriting, so two writers can never both think they wrote the same file.
+ */
+export async function writeFileOnce(filePath: string, contents: string | Uint8Array): Promise<void> {
+  await placeSyncedTempFile(filePath, contents, async (tempPath) => {
+    await link(tempPath, filePath);
+    await rm(tempPath, { force: true });
+  });
+}
+
+async function placeSyncedTempFile(
+  filePath: string,
+  contents: string | Uint8Array,
+  place: (tempPath: string) => Promise<void>,
+): Promise<void> {
   const folder = path.dirname(filePath);
   const tempPath = path.join(folder, `.${path.basename(filePath)}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`);
-  const renameFile = options.rename ?? rename;
   try {
     const handle = await open(tempPath, 'wx', 0o644);
     try {
@@ -35,7 +55,7 @@ export async function writeFileAtomic(
     } finally {
       await handle.close();
     }
-    await renameWithRetry(renameFile, tempPath, filePath);
+    await place(tempPath);
   } catch (error) {
     await rm(tempPath, { force: true });
     throw error;
