@@ -1,5 +1,5 @@
 import { defineConfig } from '@playwright/test';
-import { chromiumExecutable } from './e2e/support/chromiumExecutable';
+import { chromiumExecutable } from './e2e/support/chromiumExecutable.js';
 
 export default defineConfig({
   testDir: './e2e',

@@ -1,4 +1,4 @@
-import { expect, test } from './support/browserHostFixture';
+import { expect, test } from './support/browserHostFixture.js';
 
 // Check values: NIST/SEMATECH e-Handbook of Statistical Methods §6.2.6 "What is a Sequential
 // Sampling Plan?" — p1 = 0.01, alpha = 0.05, p2 = 0.10, beta = 0.10 gives h1 = 0.939,
