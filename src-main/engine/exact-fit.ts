@@ -1,0 +1,67 @@
+import { createExactEvaluator } from './exact-evaluator.js';
+import type { ExactPoint } from './exact-evaluator.js';
+import type { IntegerLines } from './integer-lines.js';
+import type { CountStep } from './models/model.js';
+
+export interface ExactFit {
+  h1: number;
+  h2: number;
+  /** Exact alpha and beta of the fitted integer plan. */
+  alpha: number;
+  beta: number;
+  asnH0: number;
+  asnH1: number;
+}
+
+/**
+ * Adjusts the intercepts h1 and h2 (slope kept) so the exact alpha and beta of the integer plan are
+ * at or below nominal, making max(ASN(H0), ASN(H1)) small.
+ *
+ * Method: exact alpha falls as h2 rises and as h1 falls; exact beta the reverse; both ASNs fall as
+ * either intercept falls. So alternate: h2 <- the smallest value with exact alpha <= alpha (bisection),
+ * then h1 <- the smallest with exact beta <= beta, until neither moves. Each step lowers both
+ * intercepts, so the ASNs never rise; the result is a local optimum of the coordinate search, not a
+ * proven global one.
+ * References: Wald, A. (1947), Sequential Analysis, §3 (monotonicity of the risks in the limits);
+ * reference-values §7, Michlin & Grabarnik (risks of truncated discrete tests need a search).
+ */
+export function fitExactRisks(
+  lines: IntegerLines,
+  countStep: CountStep,
+  hypotheses: { theta0: number; theta1: number },
+  risks: { alpha: number; beta: number },
+): ExactFit {
+  const point: ExactPoint = { accept: 0, reject: 0, undecided: 0, asn: 0, steps: 0 };
+  const exactAlpha = (h1: number, h2: number): number =>
+    createExactEvaluator({ ...lines, h1, h2 }, countStep).evaluate(hypotheses.theta0, point).reject;
+  const exactBeta = (h1: number, h2: number): number =>
+    createExactEvaluator({ ...lines, h1, h2 }, countStep).evaluate(hypotheses.theta1, point).accept;
+
+  /** Smallest x in (0, start * growth^k] with feasible(x), assuming feasibility is monotone in x. */
+  function smallestFeasible(start: number, feasible: (x: number) => boolean): number {
+    let high = start;
+    for (let i = 0; i < 60 && !feasible(high); i++) high *= 1.25;
+    let low = 0;
+    for (let i = 0; i < 50 && high - low > 1e-9 * high; i++) {
+      const middle = 0.5 * (low + high);
+      if (feasible(middle)) high = middle;
+      else low = middle;
+    }
+    return high;
+  }
+
+  let h1 = lines.h1;
+  let h2 = lines.h2;
+  for (let round = 0; round < 30; round++) {
+    const nextH2 = smallestFeasible(h2, (x) => exactAlpha(h1, x) <= risks.alpha);
+    const nextH1 = smallestFeasible(h1, (x) => exactBeta(x, nextH2) <= risks.beta);
+    const settled = Math.abs(nextH1 - h1) <= 1e-9 * h1 && Math.abs(nextH2 - h2) <= 1e-9 * h2;
+    h1 = nextH1;
+    h2 = nextH2;
+    if (settled) break;
+  }
+  const fitted = createExactEvaluator({ ...lines, h1, h2 }, countStep);
+  const atH0 = fitted.evaluate(hypotheses.theta0);
+  const atH1 = fitted.evaluate(hypotheses.theta1);
+  return { h1, h2, alpha: atH0.reject, beta: atH1.accept, asnH0: atH0.asn, asnH1: atH1.asn };
+}

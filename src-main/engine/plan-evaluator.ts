@@ -1,0 +1,23 @@
+import { createExactEvaluator } from './exact-evaluator.js';
+import type { ExactEvaluator, ExactEvaluatorOptions } from './exact-evaluator.js';
+import { resolvePlan } from './plan-lines.js';
+import type { PlanSpec } from './spec.js';
+
+/** An exact OC/ASN evaluator for a plan spec, with the spec's model and lines resolved once. */
+export interface PlanEvaluator extends ExactEvaluator {
+  readonly spec: PlanSpec;
+}
+
+/**
+ * Validates a spec once (and fits it when fit = 'exact') and returns the fast exact evaluator of its
+ * integer plan: hot calls take plain numbers and preallocated Float64Arrays.
+ *
+ * Method: the forward recursion of createExactEvaluator over the plan's lines.
+ * References: Aroian, L. A. (1968), "Sequential analysis, direct method", Technometrics 10(1).
+ *
+ * @throws PlanParameterError for an invalid spec.
+ */
+export function createPlanEvaluator(spec: PlanSpec, options: ExactEvaluatorOptions = {}): PlanEvaluator {
+  const plan = resolvePlan(spec);
+  return Object.assign(createExactEvaluator(plan.lines, plan.model.countStep, options), { spec });
+}
