@@ -8,3 +8,4 @@ export { planSpecSchema } from './planSpecSchema.js';
 export * from './sources.js';
 export * from './plans.js';
 export * from './settings.js';
+export { newId } from './ids.js';

@@ -1,0 +1,5 @@
+/** Inspection runs: the run service over the run journal. */
+export * from './runService.js';
+export * from './runTypes.js';
+export { RunReplay, RunJournalContentError } from './runReplay.js';
+export { runState, resultProblem, resultTotal } from './runState.js';

@@ -1,0 +1,121 @@
+/**
+ * The shapes of a run: what its journal entries carry (checked with zod on replay) and what the
+ * run service hands out.
+ */
+import { z } from 'zod';
+import { JOURNAL_FORMAT, planVersionSchema, type JournalProblem, type PlanVersion, type QuarantineRecord } from '../store/index.js';
+
+export type Decision = 'continue' | 'accept' | 'reject';
+/** One item's result: pass/fail for the passfail model, a count of nonconformities for the count model. */
+export type ItemResult = 'pass' | 'fail' | number;
+
+export const runRecordSchema = z.object({
+  id: z.string().min(1),
+  planId: z.string().min(1),
+  planVersion: z.number().int().positive(),
+  sourceId: z.string().min(1),
+  lot: z.string().min(1),
+  lotSize: z.number().int().positive().nullable(),
+  inspector: z.string().nullable(),
+  note: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type RunRecord = z.infer<typeof runRecordSchema>;
+
+export const runHeaderSchema = z.object({
+  format: z.literal(JOURNAL_FORMAT),
+  run: runRecordSchema,
+  plan: planVersionSchema,
+  source: z.object({ id: z.string(), name: z.string() }),
+});
+export interface RunHeader {
+  readonly format: typeof JOURNAL_FORMAT;
+  readonly run: RunRecord;
+  readonly plan: PlanVersion;
+  readonly source: { readonly id: string; readonly name: string };
+}
+
+export const resultPayloadSchema = z.object({
+  itemId: z.string().nullable(),
+  result: z.union([z.literal('pass'), z.literal('fail'), z.number().int().nonnegative()]),
+  category: z.string().nullable(),
+  note: z.string().nullable(),
+});
+export type ResultPayload = z.infer<typeof resultPayloadSchema>;
+
+export const voidPayloadSchema = z.object({ target: z.number().int().positive(), reason: z.string().min(1) });
+export type VoidPayload = z.infer<typeof voidPayloadSchema>;
+
+export const overridePayloadSchema = z.object({ reason: z.string().min(1) });
+export type OverridePayload = z.infer<typeof overridePayloadSchema>;
+
+export const closePayloadSchema = z.object({
+  decision: z.enum(['accept', 'reject']),
+  rule: z.string(),
+  n: z.number().int().nonnegative(),
+  total: z.number().nonnegative(),
+  llr: z.number(),
+});
+export type ClosePayload = z.infer<typeof closePayloadSchema>;
+
+/** One result as a reader sees it: voided entries stay, marked. */
+export interface RunEntryView {
+  readonly seq: number;
+  readonly time: string;
+  readonly offset: string;
+  readonly itemId: string | null;
+  readonly result: ItemResult;
+  readonly category: string | null;
+  readonly note: string | null;
+  readonly actor: string;
+  readonly voided: boolean;
+  readonly voidReason: string | null;
+}
+
+/** The statistics of a run now: items inspected, their total (nonconforming items or nonconformities). */
+export interface RunState {
+  readonly decision: Decision;
+  readonly n: number;
+  readonly total: number;
+  readonly llr: number;
+  readonly rule: string | null;
+}
+
+export type RunStatus = 'open' | 'closed';
+
+export interface RunView {
+  readonly run: RunRecord & {
+    readonly status: RunStatus;
+    readonly sourceName: string;
+    readonly closedAt: string | null;
+    readonly decision: Decision | null;
+    readonly rule: string | null;
+    readonly fingerprint: string | null;
+  };
+  readonly plan: PlanVersion;
+  readonly entries: RunEntryView[];
+  readonly state: RunState;
+  /** False when the journal is damaged (read-only) or another process is writing it. */
+  readonly writable: boolean;
+  readonly problems: JournalProblem[];
+  /** Set when opening this run moved a torn final line to quarantine. */
+  readonly recovered: QuarantineRecord | null;
+}
+
+export interface RunSummary {
+  readonly id: string;
+  readonly lot: string;
+  readonly sourceId: string;
+  readonly sourceName: string;
+  readonly planId: string;
+  readonly planVersion: number;
+  readonly planName: string;
+  readonly createdAt: string;
+  readonly status: RunStatus;
+  readonly decision: Decision;
+  readonly n: number;
+  readonly total: number;
+  /** True when the journal's chain verifies (a torn tail not yet quarantined counts as a problem). */
+  readonly ok: boolean;
+  readonly problems: JournalProblem[];
+}
