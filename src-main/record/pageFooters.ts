@@ -1,0 +1,42 @@
+import type { DecisionRecordInput } from './recordInput.js';
+import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
+import { INK, TYPE_SIZE } from './layout.js';
+
+export function pageLabel(pageNumber: number, pageCount: number): string {
+  return `page ${pageNumber} of ${pageCount}`;
+}
+
+/**
+ * Writes the footer of every buffered page once the page count is known: record id, run, the
+ * start of the fingerprint, "page x of y", and INTERIM on every page of an undecided run.
+ * Footers are pagination artifacts, outside the tagged structure.
+ */
+export function drawPageFooters(doc: PDFKit.PDFDocument, input: DecisionRecordInput): void {
+  const range = doc.bufferedPageRange();
+  for (let index = range.start; index < range.start + range.count; index++) {
+    doc.switchToPage(index);
+    const { margins } = doc.page;
+    const savedBottom = margins.bottom;
+    margins.bottom = 0; // writing below the bottom margin must not start a new page
+    const y = doc.page.height - 30;
+    const left = margins.left;
+    const width = doc.page.width - margins.left - margins.right;
+    doc.markContent('Artifact', { type: 'Pagination' });
+    doc.moveTo(left, y - 5).lineTo(left + width, y - 5).lineWidth(0.4).strokeColor(INK.rule).stroke();
+    doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.small).fillColor(INK.muted);
+    const prefix = input.interim ? 'INTERIM ' : '';
+    doc.text(
+      `${prefix}Decision record ${input.header.recordId}, run ${input.header.runId}, fingerprint ${input.fingerprint.slice(0, 12)}...`,
+      left,
+      y,
+      { width: width * 0.75, lineBreak: false },
+    );
+    doc.font(FONT_BOLD).fillColor(INK.text).text(pageLabel(index - range.start + 1, range.count), left + width * 0.75, y, {
+      width: width * 0.25,
+      align: 'right',
+      lineBreak: false,
+    });
+    doc.endMarkedContent();
+    margins.bottom = savedBottom;
+  }
+}
