@@ -7,8 +7,8 @@ export interface HandlerContext {
 }
 
 /** Every channel's handler, for either adapter. */
-export function createHandlers(_context: HandlerContext): ChannelHandlers {
+export function createHandlers(context: HandlerContext): ChannelHandlers {
   return {
-    ...createPlanHandlers(),
+    ...createPlanHandlers(context),
   };
 }
