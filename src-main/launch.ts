@@ -2,7 +2,7 @@
  * `npm start`: the desktop window when the Electron runtime is installed; otherwise one line
  * saying so, and the browser host, with the address to open.
  */
-import { spawn } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { appRoot } from './appPaths.js';
 import { startAppHost } from './host/startAppHost.js';
@@ -13,6 +13,9 @@ let runtime = findElectronRuntime(appRoot);
 if (runtime === null && tryDownloadElectronRuntime(appRoot)) runtime = findElectronRuntime(appRoot);
 
 if (runtime !== null) {
+  // The Electron shell runs compiled JavaScript; the browser host runs the TypeScript directly.
+  const build = spawnSync('npm', ['run', '--silent', 'build:main'], { cwd: appRoot, stdio: 'inherit', shell: process.platform === 'win32' });
+  if (build.status !== 0) process.exit(build.status ?? 1);
   const child = spawn(runtime, [join(appRoot, 'build', 'main', 'electron', 'main.js'), ...argv], { stdio: 'inherit' });
   child.on('exit', (code) => process.exit(code ?? 0));
 } else {
