@@ -1,0 +1,27 @@
+/**
+ * The `tallyline` command line: `npm run cli -- <command> ...` or the `tallyline` bin.
+ * Add a command by writing `src-main/cli/<name>.ts` exporting `command: Command` and one line below.
+ */
+import { readFile } from 'node:fs/promises';
+import type { CliIo } from './cli/command.js';
+import { dispatch } from './cli/dispatch.js';
+import type { CommandTable } from './cli/dispatch.js';
+
+const commands: CommandTable = {
+  plan: { summary: 'design a sequential plan (lines, OC/ASN, single plan)', load: () => import('./cli/plan.js') },
+  replay: { summary: 'replay recorded results through a plan to its decision', load: () => import('./cli/replay.js') },
+};
+
+async function readStdin(): Promise<string> {
+  const chunks: Buffer[] = [];
+  for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
+  return Buffer.concat(chunks).toString('utf8');
+}
+
+const io: CliIo = {
+  stdout: (text) => void process.stdout.write(text),
+  stderr: (text) => void process.stderr.write(text),
+  readText: (path) => (path === '-' ? readStdin() : readFile(path, 'utf8')),
+};
+
+process.exitCode = await dispatch(commands, process.argv.slice(2), io);

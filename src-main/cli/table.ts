@@ -1,0 +1,26 @@
+/** Plain-text tables for the readable (non-JSON) output of CLI commands. */
+
+/** Left-aligns the first column (labels) and right-aligns the others (numbers), two spaces apart. */
+export function formatTable(headers: readonly string[], rows: ReadonlyArray<readonly string[]>): string {
+  const widths = headers.map((header, column) =>
+    Math.max(header.length, ...rows.map((row) => (row[column] ?? '').length)),
+  );
+  const line = (cells: readonly string[]): string =>
+    cells.map((cell, column) => (column === 0 ? cell.padEnd(widths[column]) : cell.padStart(widths[column]))).join('  ').trimEnd();
+  return [line(headers), ...rows.map(line)].join('\n');
+}
+
+/** A number with `digits` significant digits, without exponent noise for ordinary sizes. */
+export function formatNumber(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined) return '-';
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  if (magnitude >= 1e-4 && magnitude < 1e7) return String(Number(value.toPrecision(digits)));
+  return value.toExponential(digits - 1);
+}
+
+/** A probability as a percentage with two decimals. */
+export function formatPercent(value: number): string {
+  return `${(100 * value).toFixed(2)}%`;
+}
