@@ -10,6 +10,10 @@ import type { CommandTable } from './cli/dispatch.js';
 const commands: CommandTable = {
   plan: { summary: 'design a sequential plan (lines, OC/ASN, single plan)', load: () => import('./cli/plan.js') },
   replay: { summary: 'replay recorded results through a plan to its decision', load: () => import('./cli/replay.js') },
+  'run start': { summary: 'start an inspection run (saved plan or plan flags)', load: async () => ({ command: (await import('./cli/run.js')).startCommand }) },
+  'run show': { summary: 'print a run: plan, entries and state', load: async () => ({ command: (await import('./cli/run.js')).showCommand }) },
+  feed: { summary: 'record results for a run from stdin, one a line', load: () => import('./cli/feed.js') },
+  verify: { summary: "re-read a run's journal and verify its hash chain", load: () => import('./cli/verify.js') },
 };
 
 async function readStdin(): Promise<string> {

@@ -159,6 +159,11 @@ export function createRunService(options: RunServiceOptions) {
     return { replay: RunReplay.fromEntries(analysis.entries), problems: analysis.problems, fingerprint: analysis.fingerprint };
   }
 
+  async function readOnlyView(runId: string): Promise<RunView> {
+    const found = await readOnly(runId);
+    return view(found.replay, { writable: false, problems: found.problems, recovered: null, fingerprint: found.fingerprint });
+  }
+
   return {
     async startRun(input: StartRunInput): Promise<RunView> {
       const plan = await plans.get(input.planId, input.planVersion);
@@ -245,10 +250,18 @@ export function createRunService(options: RunServiceOptions) {
           return view(handle.replay, { writable: true, problems: [], recovered: handle.recovered, fingerprint: handle.writer.fingerprint });
         } catch (error) {
           if (!(error instanceof RunNotWritableError)) throw error;
-          const found = await readOnly(runId);
-          return view(found.replay, { writable: false, problems: found.problems, recovered: null, fingerprint: found.fingerprint });
+          return readOnlyView(runId);
         }
       });
+    },
+
+    /** A run as it is on disk, without taking its lock or repairing anything (for viewers and `run show`). */
+    async readRun(runId: string): Promise<RunView> {
+      const cached = open.get(checkId('run', runId));
+      if (cached !== undefined) {
+        return view(cached.replay, { writable: true, problems: [], recovered: cached.recovered, fingerprint: cached.writer.fingerprint });
+      }
+      return readOnlyView(runId);
     },
 
     /** Every run in the data directory, newest first, each journal read back and its chain verified. */

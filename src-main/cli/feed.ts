@@ -1,0 +1,99 @@
+/**
+ * `tallyline feed`: results for a run from standard input, one a line, for automated stations.
+ * After each entry is written and fsync'd it prints {"seq": N, "state": ...}; it stops right after
+ * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
+ */
+import { createInterface } from 'node:readline';
+import type { ItemResult, RunService } from '../inspection/index.js';
+import type { CliIo, Command } from './command.js';
+import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
+import { flag, parseFlags, requireFlag } from './flags.js';
+import { dataDirectoryFlags, runServiceFor } from './run.js';
+
+const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), actor: flag.text('a name'), json: flag.switch() };
+
+const PASS_FAIL_WORDS: Record<string, ItemResult> = { pass: 'pass', fail: 'fail', '0': 'pass', '1': 'fail' };
+
+/** The result on one input line, null for a blank or # comment line, or a sentence saying what is wrong. */
+export function parseFeedLine(model: 'passfail' | 'count', line: string): ItemResult | null | { problem: string } {
+  const text = line.trim();
+  if (text === '' || text.startsWith('#')) return null;
+  if (model === 'passfail') {
+    return PASS_FAIL_WORDS[text.toLowerCase()] ?? { problem: `${JSON.stringify(text)} is not pass, fail, 0 or 1` };
+  }
+  return /^\d+$/.test(text) && Number.isSafeInteger(Number(text))
+    ? Number(text)
+    : { problem: `${JSON.stringify(text)} is not a whole number of nonconformities (0 or more)` };
+}
+
+export interface FeedOptions {
+  readonly runId: string;
+  readonly actor?: string;
+  readonly json: boolean;
+}
+
+/** Feed `lines` into a run; resolves to the exit code. Each line's entry is durable before the next is read. */
+export async function feedLines(service: RunService, lines: AsyncIterable<string>, options: FeedOptions, io: CliIo): Promise<number> {
+  const opened = await service.openRun(options.runId);
+  if (!opened.writable) {
+    io.stderr(`tallyline feed: run ${options.runId} cannot be written: ${opened.problems[0]?.problem ?? 'it is open elsewhere'}\n`);
+    return EXIT_FAILURE;
+  }
+  if (opened.run.status === 'closed') {
+    io.stderr(`tallyline feed: run ${options.runId} is already decided (${opened.run.decision}); record an override with a reason first\n`);
+    return EXIT_FAILURE;
+  }
+  if (opened.recovered !== null) {
+    io.stderr(`tallyline feed: a torn final line (${opened.recovered.length} bytes) was moved to quarantine\n`);
+  }
+  const model = opened.plan.spec.model;
+  const actor = options.actor ?? opened.run.inspector ?? 'station';
+  let lineNumber = 0;
+  for await (const line of lines) {
+    lineNumber += 1;
+    const result = parseFeedLine(model, line);
+    if (result === null) continue;
+    if (typeof result === 'object') {
+      io.stderr(`tallyline feed: line ${lineNumber}: ${result.problem}\n`);
+      return EXIT_USAGE;
+    }
+    let outcome;
+    try {
+      outcome = await service.recordResult(options.runId, { result, actor });
+    } catch (error) {
+      io.stderr(`tallyline feed: line ${lineNumber}: ${(error as Error).message}\n`);
+      return EXIT_USAGE;
+    }
+    const state = outcome.state.decision;
+    io.stdout(options.json ? `${JSON.stringify({ seq: outcome.seq, state })}\n` : `seq ${outcome.seq}: ${state}\n`);
+    if (state !== 'continue') return EXIT_OK;
+  }
+  return EXIT_OK;
+}
+
+export const command: Command = {
+  summary: 'record results for a run from standard input, one a line',
+  usage: [
+    'Usage: tallyline feed --run ID [--actor NAME] [--data-dir DIR] [--json]',
+    '  stdin                      one result a line: pass/fail or 0/1 (passfail), a count (count); # comments',
+    '  --json                     after each durable entry print {"seq": N, "state": "continue"|"accept"|"reject"}',
+    '  exit 0 after the deciding line or at end of input; exit 2 on a bad line (its number on stderr)',
+  ].join('\n'),
+  async run(args, io) {
+    const values = parseFlags(args, flags);
+    const runId = requireFlag<string>(values, 'run', flags);
+    const { service } = runServiceFor(args);
+    const reader = createInterface({ input: process.stdin, crlfDelay: Infinity });
+    // Take the iterator now: it buffers lines that arrive (and the end of input) while the run opens.
+    const iterator = reader[Symbol.asyncIterator]();
+    const lines: AsyncIterable<string> = { [Symbol.asyncIterator]: () => iterator };
+    try {
+      return await feedLines(service, lines, { runId, actor: values.actor, json: values.json === true }, io);
+    } finally {
+      reader.close();
+      // A station may keep its end open: stop reading so the process can exit after the decision.
+      process.stdin.destroy();
+      await service.close();
+    }
+  },
+};

@@ -1,0 +1,138 @@
+/**
+ * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
+ * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
+ */
+import os from 'node:os';
+import { createRunService, type RunService, type RunView } from '../inspection/index.js';
+import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store/index.js';
+import type { Command } from './command.js';
+import { EXIT_OK } from './command.js';
+import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
+import { planFlags, planFlagsUsage, planSpecFromFlags } from './plan-flags.js';
+import { formatNumber } from './table.js';
+
+/** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
+export const dataDirectoryFlags = { 'data-dir': flag.text('a folder') };
+
+/** The data directory for these args: --data-dir, then TALLYLINE_DATA, then the OS app-data folder. */
+export function dataDirectoryFor(args: readonly string[]): string {
+  return resolveDataDirectory({ argv: args, env: process.env, platform: process.platform, home: os.homedir() });
+}
+
+/** The data directory for these args, and a run service on it that the caller must close. */
+export function runServiceFor(args: readonly string[]): { dataDirectory: string; service: RunService } {
+  const dataDirectory = dataDirectoryFor(args);
+  return { dataDirectory, service: createRunService({ dataDirectory }) };
+}
+
+const startFlags = {
+  ...planFlags,
+  ...dataDirectoryFlags,
+  plan: flag.text('a saved plan id'),
+  'plan-version': flag.integer(1),
+  'plan-name': flag.text('a plan name'),
+  source: flag.text('a source name'),
+  lot: flag.text('a lot or batch id'),
+  'lot-size': flag.integer(1),
+  inspector: flag.text('a name'),
+  note: flag.text('a note'),
+  json: flag.switch(),
+};
+
+const PLAN_FLAG_NAMES = Object.keys(planFlags);
+
+export const startCommand: Command = {
+  summary: 'start an inspection run from a saved plan (--plan) or plan flags',
+  usage: [
+    'Usage: tallyline run start (--plan ID [--plan-version N] | <plan flags> [--plan-name NAME]) --source NAME --lot LOT',
+    '                           [--lot-size N] [--inspector NAME] [--note TEXT] [--data-dir DIR] [--json]',
+    '  --plan ID                  a saved plan (its latest version unless --plan-version is given)',
+    planFlagsUsage,
+    '  --source NAME              the supplier, line or machine; created when new',
+    '  --lot LOT                  the lot or batch id',
+    '  --json                     print {"run": ID}',
+  ].join('\n'),
+  async run(args, io) {
+    const values = parseFlags(args, startFlags);
+    const sourceName = requireFlag<string>(values, 'source', startFlags);
+    const lot = requireFlag<string>(values, 'lot', startFlags);
+    const { dataDirectory, service } = runServiceFor(args);
+    try {
+      const { source } = await new SourceRepository(dataDirectory).findOrCreate(sourceName);
+      let planId: string;
+      let planVersion: number | undefined;
+      if (values.plan !== undefined) {
+        rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
+        planId = values.plan;
+        planVersion = values['plan-version'];
+      } else {
+        if (values.model === undefined) {
+          throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
+        }
+        rejectFlags(values, ['plan-version'], 'applies to --plan only');
+        const spec = planSpecFromFlags(values);
+        const saved = await new PlanRepository(dataDirectory).save({
+          name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
+          sourceId: source.id,
+          spec,
+        });
+        planId = saved.id;
+        planVersion = saved.version;
+      }
+      const { run } = await service.startRun({
+        planId,
+        planVersion,
+        sourceId: source.id,
+        lot,
+        lotSize: values['lot-size'] ?? null,
+        inspector: values.inspector ?? null,
+        note: values.note ?? null,
+      });
+      io.stdout(values.json === true ? `${JSON.stringify({ run: run.id })}\n` : `Started run ${run.id} (plan ${run.planId} v${run.planVersion}, lot ${run.lot})\n`);
+      return EXIT_OK;
+    } finally {
+      await service.close();
+    }
+  },
+};
+
+const showFlags = { ...dataDirectoryFlags, run: flag.text('a run id'), json: flag.switch() };
+
+/** The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}}. */
+export function showJson(view: RunView): unknown {
+  return {
+    run: view.run,
+    plan: view.plan,
+    entries: view.entries.map((entry) => ({ seq: entry.seq, time: entry.time, result: entry.result, voided: entry.voided })),
+    state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr },
+  };
+}
+
+export const showCommand: Command = {
+  summary: 'print a run: its plan, entries and state',
+  usage: 'Usage: tallyline run show --run ID [--data-dir DIR] [--json]',
+  async run(args, io) {
+    const values = parseFlags(args, showFlags);
+    const runId = requireFlag<string>(values, 'run', showFlags);
+    const { service } = runServiceFor(args);
+    try {
+      const view = await service.readRun(runId);
+      if (values.json === true) {
+        io.stdout(`${JSON.stringify(showJson(view))}\n`);
+      } else {
+        const { run, state } = view;
+        io.stdout(
+          [
+            `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
+            `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, n = ${state.n}, total = ${state.total}, LLR = ${formatNumber(state.llr)}`,
+            ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${entry.result}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
+            ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
+          ].join('\n') + '\n',
+        );
+      }
+      return EXIT_OK;
+    } finally {
+      await service.close();
+    }
+  },
+};
