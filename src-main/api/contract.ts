@@ -6,9 +6,11 @@
  */
 import type { z } from 'zod';
 import { planChannels, type PlanChannelOutputs } from './channels/planChannels.js';
+import { inspectionChannels, type InspectionChannelOutputs } from './channels/inspectionChannels.js';
 
 export const channels = {
   ...planChannels,
+  ...inspectionChannels,
 } as const;
 
 export type ChannelName = keyof typeof channels;
@@ -19,7 +21,7 @@ export type ChannelInput<C extends ChannelName> = z.input<(typeof channels)[C]['
 /** What the handler receives once the schema has accepted the payload. */
 export type ChannelParsedInput<C extends ChannelName> = z.output<(typeof channels)[C]['input']>;
 
-export interface ChannelOutputs extends PlanChannelOutputs {}
+export interface ChannelOutputs extends PlanChannelOutputs, InspectionChannelOutputs {}
 
 /** What a channel answers with when it succeeds. */
 export type ChannelOutput<C extends ChannelName> = ChannelOutputs[C];

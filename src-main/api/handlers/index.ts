@@ -1,5 +1,6 @@
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
+import { createInspectionHandlers } from './inspectionHandlers.js';
 
 /** Where the handlers keep and find data; one per app instance. */
 export interface HandlerContext {
@@ -10,5 +11,6 @@ export interface HandlerContext {
 export function createHandlers(context: HandlerContext): ChannelHandlers {
   return {
     ...createPlanHandlers(context),
+    ...createInspectionHandlers(context),
   };
 }
