@@ -89,7 +89,14 @@ export function designPlan(spec: PlanSpec, options: DesignOptions = {}): PlanDes
     suggestedTruncation: suggestedTruncation(lines, model.countStep, hypotheses, spec),
     threeTimesSingle,
     saving: single === null ? null : { h0: 1 - atH0.point.asn / single.n, h1: 1 - atH1.point.asn / single.n },
-    fit: { mode: spec.fit ?? 'wald', waldH1: plan.waldLines.h1, waldH2: plan.waldLines.h2, h1: lines.h1, h2: lines.h2 },
+    fit: {
+      mode: spec.fit ?? 'wald',
+      waldH1: plan.waldLines.h1,
+      waldH2: plan.waldLines.h2,
+      h1: lines.h1,
+      h2: lines.h2,
+      feasible: plan.fit?.feasible ?? true,
+    },
     neutral: { theta: neutralTheta, ocWald: neutral.oc, asnWald: neutral.asn },
     sampleSizeDistribution: { h0: Array.from(atH0.probabilities), h1: Array.from(atH1.probabilities) },
   };

@@ -11,6 +11,8 @@ export interface ExactFit {
   beta: number;
   asnH0: number;
   asnH1: number;
+  /** False when no intercepts meet both risks (possible only with a short truncation); Wald's lines are kept then. */
+  feasible: boolean;
 }
 
 /**
@@ -37,12 +39,22 @@ export function fitExactRisks(
   const exactBeta = (h1: number, h2: number): number =>
     createExactEvaluator({ ...lines, h1, h2 }, countStep).evaluate(hypotheses.theta1, point).accept;
 
-  /** Smallest x in (0, start * growth^k] with feasible(x), assuming feasibility is monotone in x. */
-  function smallestFeasible(start: number, feasible: (x: number) => boolean): number {
+  // Past this an intercept changes nothing more (with truncation) or the risk is already ~0.
+  const ceiling =
+    lines.truncation === null
+      ? 1e3 * Math.max(lines.h1, lines.h2)
+      : lines.truncation * Math.max(1, lines.slope) + lines.h1 + lines.h2 + 2;
+
+  /** Smallest x in (0, ceiling] with feasible(x), assuming feasibility is monotone in x; null if none. */
+  function smallestFeasible(start: number, feasible: (x: number) => boolean): number | null {
     let high = start;
-    for (let i = 0; i < 60 && !feasible(high); i++) high *= 1.25;
+    while (!feasible(high)) {
+      if (high >= ceiling) return null;
+      high = Math.min(ceiling, high * 1.5);
+    }
     let low = 0;
-    for (let i = 0; i < 50 && high - low > 1e-9 * high; i++) {
+    // Plans change only where a line crosses a lattice point; 1e-7 relative resolves those.
+    for (let i = 0; i < 40 && high - low > 1e-7 * high; i++) {
       const middle = 0.5 * (low + high);
       if (feasible(middle)) high = middle;
       else low = middle;
@@ -52,10 +64,17 @@ export function fitExactRisks(
 
   let h1 = lines.h1;
   let h2 = lines.h2;
+  let feasible = true;
   for (let round = 0; round < 30; round++) {
     const nextH2 = smallestFeasible(h2, (x) => exactAlpha(h1, x) <= risks.alpha);
-    const nextH1 = smallestFeasible(h1, (x) => exactBeta(x, nextH2) <= risks.beta);
-    const settled = Math.abs(nextH1 - h1) <= 1e-9 * h1 && Math.abs(nextH2 - h2) <= 1e-9 * h2;
+    const nextH1 = nextH2 === null ? null : smallestFeasible(h1, (x) => exactBeta(x, nextH2) <= risks.beta);
+    if (nextH1 === null || nextH2 === null) {
+      feasible = false;
+      h1 = lines.h1;
+      h2 = lines.h2;
+      break;
+    }
+    const settled = Math.abs(nextH1 - h1) <= 1e-7 * h1 && Math.abs(nextH2 - h2) <= 1e-7 * h2;
     h1 = nextH1;
     h2 = nextH2;
     if (settled) break;
@@ -63,5 +82,5 @@ export function fitExactRisks(
   const fitted = createExactEvaluator({ ...lines, h1, h2 }, countStep);
   const atH0 = fitted.evaluate(hypotheses.theta0);
   const atH1 = fitted.evaluate(hypotheses.theta1);
-  return { h1, h2, alpha: atH0.reject, beta: atH1.accept, asnH0: atH0.asn, asnH1: atH1.asn };
+  return { h1, h2, alpha: atH0.reject, beta: atH1.accept, asnH0: atH0.asn, asnH1: atH1.asn, feasible };
 }

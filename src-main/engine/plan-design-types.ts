@@ -61,7 +61,8 @@ export interface PlanDesign {
   threeTimesSingle: number | null;
   /** Expected saving of items against the single plan: 1 - exact ASN / n, at H0 and H1. */
   saving: { h0: number; h1: number } | null;
-  fit: { mode: FitMode; waldH1: number; waldH2: number; h1: number; h2: number };
+  /** The lines' intercepts before and after the exact-risk fit; feasible false when no fit meets both risks. */
+  fit: { mode: FitMode; waldH1: number; waldH2: number; h1: number; h2: number; feasible: boolean };
   /** Wald's OC and ASN at the quality where E[z] = 0, where Wald's ASN peaks. */
   neutral: { theta: number; ocWald: number; asnWald: number };
   /** P(decision at item count n) for n = 0..length-1, at H0 and H1, for charts. */
