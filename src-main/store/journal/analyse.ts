@@ -6,7 +6,7 @@
  * seq 0). Bytes after the last newline, or an unparsable last line, are a torn tail (an append cut
  * short by a crash); anything wrong before that is tampering.
  */
-import { GENESIS_HASH, JOURNAL_FORMAT, journalEntrySchema, lineHash, type JournalEntry } from './format.js';
+import { GENESIS_HASH, JOURNAL_FORMAT, journalEntryProblem, lineHash, type JournalEntry } from './format.js';
 
 export type JournalProblemKind = 'torn' | 'tampered';
 
@@ -129,12 +129,8 @@ function parseEntry(line: Buffer): JournalEntry | string {
   } catch {
     return 'line is not valid JSON';
   }
-  const result = journalEntrySchema.safeParse(value);
-  if (!result.success) {
-    const issue = result.error.issues[0];
-    return `line is not a journal entry: field "${issue?.path.join('.') ?? '?'}": ${issue?.message ?? 'invalid'}`;
-  }
-  return result.data as JournalEntry;
+  const problem = journalEntryProblem(value);
+  return problem === null ? (value as JournalEntry) : `line is not a journal entry: ${problem}`;
 }
 
 function isHeader(entry: JournalEntry): boolean {
