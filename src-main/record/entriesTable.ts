@@ -28,10 +28,10 @@ function sharedOffsetOf(entries: readonly RecordEntry[]): string | null {
 function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], model: RecordModel, tableWidth: number): Column[] {
   const sharedOffset = sharedOffsetOf(entries);
   doc.font(FONT_REGULAR).fontSize(FONT_SIZE);
+  // Measured in bold, the widest face used in a cell (titles, and nonconforming results).
   const fit = (title: string, texts: string[], cap: number): number => {
     doc.font(FONT_BOLD);
     let widest = doc.widthOfString(title);
-    doc.font(FONT_REGULAR);
     for (const text of texts) widest = Math.max(widest, doc.widthOfString(text));
     return Math.min(cap, Math.ceil(widest) + 2 * CELL_PADDING + 1);
   };

@@ -34,7 +34,10 @@ function createRecordDocument(input: DecisionRecordInput, fonts: RecordFontFiles
     tagged: true,
     lang: 'en',
     displayTitle: true,
-    font: fonts.regular,
+    // No default font: pdfkit would otherwise load Helvetica (never embedded, so not PDF/A), and a
+    // default loaded from our own file would defeat pdfkit's cache for the registered name (the TTF
+    // was re-parsed on every font switch). The record's fonts are registered just below.
+    font: null as unknown as string,
     info: {
       Title: metadataText(`${input.interim ? 'Interim decision record' : 'Decision record'} ${header.recordId}`),
       Author: metadataText(`${header.organisationName}, ${header.site}`),
