@@ -3,7 +3,7 @@
  * Every change is one journal append, acknowledged only once it is on disk; the run closes itself
  * with the engine's decision and rule as soon as the statistics reach one.
  */
-import { readFile, readdir } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import {
   JournalBusyError,
   JournalTamperedError,
@@ -12,6 +12,7 @@ import {
   SourceRepository,
   analyseJournal,
   checkId,
+  folderNames,
   layout,
   newId,
   type JournalProblem,
@@ -266,13 +267,7 @@ export function createRunService(options: RunServiceOptions) {
 
     /** Every run in the data directory, newest first, each journal read back and its chain verified. */
     async listRuns(): Promise<RunSummary[]> {
-      let names: string[];
-      try {
-        names = await readdir(layout.runsFolder(dataDirectory));
-      } catch (error) {
-        if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
-        throw error;
-      }
+      const names = await folderNames(layout.runsFolder(dataDirectory));
       const ids = names.filter((name) => name.endsWith('.journal')).map((name) => name.slice(0, -'.journal'.length));
       const summaries = await Promise.all(
         ids.map(async (id): Promise<RunSummary> => {

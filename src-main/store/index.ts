@@ -9,3 +9,4 @@ export * from './sources.js';
 export * from './plans.js';
 export * from './settings.js';
 export { newId } from './ids.js';
+export { folderNames } from './folderNames.js';

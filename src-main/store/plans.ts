@@ -2,7 +2,7 @@
  * Saved plans, versioned. Each version is its own write-once file: a version that a run uses can
  * never change, because no version ever changes; saving an edit makes the next version.
  */
-import { readdir } from 'node:fs/promises';
+import { folderNames } from './folderNames.js';
 import { z } from 'zod';
 import type { PlanSpec } from '../engine/index.js';
 import { newId } from './ids.js';
@@ -89,13 +89,7 @@ export class PlanRepository {
 
   /** The version numbers saved for a plan, ascending (empty when there is no such plan). */
   async versions(id: string): Promise<number[]> {
-    let names: string[];
-    try {
-      names = await readdir(layout.planFolder(this.dataDirectory, id));
-    } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
-      throw error;
-    }
+    const names = await folderNames(layout.planFolder(this.dataDirectory, id));
     return names
       .map((name) => VERSION_FILE.exec(name)?.[1])
       .filter((found): found is string => found !== undefined)
@@ -105,13 +99,7 @@ export class PlanRepository {
 
   /** The latest version of every plan. */
   async listLatest(): Promise<PlanVersion[]> {
-    let ids: string[];
-    try {
-      ids = await readdir(layout.plansFolder(this.dataDirectory));
-    } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
-      throw error;
-    }
+    const ids = await folderNames(layout.plansFolder(this.dataDirectory));
     const plans = await Promise.all(ids.filter((id) => !id.startsWith('.')).map((id) => this.get(id).catch(() => undefined)));
     return plans.filter((plan): plan is PlanVersion => plan !== undefined);
   }

@@ -2,7 +2,7 @@
  * The source register: suppliers, lines and machines, with their parts and characteristics.
  * Sources are created, renamed and retired, never deleted: runs refer to them by id.
  */
-import { readdir } from 'node:fs/promises';
+import { folderNames } from './folderNames.js';
 import { z } from 'zod';
 import { newId } from './ids.js';
 import { readJsonFile, writeJsonFile } from './jsonFile.js';
@@ -43,13 +43,7 @@ export class SourceRepository {
   ) {}
 
   async list(options: { includeRetired?: boolean } = {}): Promise<Source[]> {
-    let names: string[];
-    try {
-      names = await readdir(layout.sourcesFolder(this.dataDirectory));
-    } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
-      throw error;
-    }
+    const names = await folderNames(layout.sourcesFolder(this.dataDirectory));
     const ids = names.filter((name) => name.endsWith('.json') && !name.startsWith('.')).map((name) => name.slice(0, -5));
     const sources = await Promise.all(ids.map((id) => this.get(id)));
     return sources
