@@ -102,8 +102,8 @@ export function drawEntriesTable(layout: RecordLayout, entries: readonly RecordE
       const cellX = x;
       x += column.width;
       return doc.struct('TD', {}, () => {
-        // Nonconforming results in bold so they stand out when scanning a long table.
-        const emphasise = i === RESULT_COLUMN && entry.nonconformities > 0;
+        // Counted nonconforming results in bold so they stand out when scanning a long table.
+        const emphasise = i === RESULT_COLUMN && entry.nonconformities > 0 && entry.voided === null;
         doc.font(emphasise ? FONT_BOLD : FONT_REGULAR).fontSize(FONT_SIZE).fillColor(entry.voided ? INK.muted : INK.text);
         doc.text(texts[i], cellX + CELL_PADDING, top + CELL_PADDING, { width: column.width - 2 * CELL_PADDING, strike: entry.voided !== null && texts[i] !== '' });
         if (i === columns.length - 1 && voidNote) {
