@@ -3,13 +3,13 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterEach } from 'vitest';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { CountSpec, PassFailSpec, PlanSpec } from '../../src-main/engine/index.js';
 import { createRunService, type RunService } from '../../src-main/inspection/index.js';
 import { PlanRepository, SourceRepository, type PlanVersion, type Source } from '../../src-main/store/index.js';
 
 /** Wald plan with p0 1 %, p1 10 %, 5 % risks: a handful of failures rejects, a few dozen passes accept. */
-export const passFailSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
-export const countSpec: PlanSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
+export const passFailSpec: PassFailSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
+export const countSpec: CountSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
 
 const cleanups: (() => Promise<void>)[] = [];
 afterEach(async () => {

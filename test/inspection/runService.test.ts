@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { liveState } from '../../src-main/engine/index.js';
 import { createRunService, RunClosedError, RunNotWritableError } from '../../src-main/inspection/index.js';
 import { PlanRepository, layout, verifyJournal } from '../../src-main/store/index.js';
-import { readFile, writeFile } from 'node:fs/promises';
+import { appendFile, readFile, writeFile } from 'node:fs/promises';
 import { countSpec, passFailSpec, workspace } from './helpers.js';
 
 describe('the run service', () => {
@@ -118,6 +118,24 @@ describe('the run service', () => {
       expect(view.problems[0]).toMatchObject({ seq: 2, kind: 'tampered' });
       await expect(second.recordResult(run.id, { result: 'pass', actor: 'Ana' })).rejects.toBeInstanceOf(RunNotWritableError);
       expect((await second.listRuns())[0]).toMatchObject({ id: run.id, ok: false });
+    } finally {
+      await second.close();
+    }
+  });
+
+  it('reports a torn final line it moved to quarantine when it reopens a run, and carries on from the intact entries', async () => {
+    const { service, source, plan, data } = await workspace();
+    const { run } = await service.startRun({ planId: plan.id, sourceId: source.id, lot: 'L' });
+    await service.recordResult(run.id, { result: 'pass', actor: 'Ana' });
+    await service.close();
+    await appendFile(layout.runJournal(data, run.id), '{"seq":2,"time":"2026-');
+    const second = createRunService({ dataDirectory: data });
+    try {
+      const view = await second.openRun(run.id);
+      expect(view.recovered).toMatchObject({ text: '{"seq":2,"time":"2026-' });
+      expect(view.entries).toHaveLength(1);
+      expect((await second.recordResult(run.id, { result: 'pass', actor: 'Ana' })).seq).toBe(2);
+      expect(await verifyJournal(layout.runJournal(data, run.id))).toMatchObject({ ok: true, entries: 3 });
     } finally {
       await second.close();
     }
