@@ -1,0 +1,102 @@
+/**
+ * What the engineer has typed on the Plan place, kept as text so nothing typed is ever lost, and
+ * the plan it stands for once every field reads as a number. Ranges (p0 < p1, alpha + beta < 1)
+ * are the engine's to judge; this only reads the units.
+ */
+import type { PlanSpec } from '../../../../src-main/engine/index';
+import { decimalText, parseDecimal } from '../../lib/decimalText';
+import { qualityScale, type CountUnit, type ModelName } from './qualityScale';
+
+export type DraftField = 'acceptable' | 'rejectable' | 'producerRisk' | 'consumerRisk' | 'truncation';
+export type TruncationMode = 'none' | 'fixed' | 'suggested';
+export type FitMode = 'wald' | 'exact';
+
+/** A plan the engine may be asked about, or the first field that is not yet a number. */
+export type DraftReading =
+  | { ok: true; spec: PlanSpec; suggestTruncation: boolean }
+  | { ok: false; field: DraftField; message: string };
+
+/** Which input an engine parameter name belongs to. */
+export const fieldOfParameter: Record<string, DraftField> = {
+  p0: 'acceptable',
+  lambda0: 'acceptable',
+  p1: 'rejectable',
+  lambda1: 'rejectable',
+  alpha: 'producerRisk',
+  beta: 'consumerRisk',
+  truncation: 'truncation',
+};
+
+export class PlanDraft {
+  /** The name the plan is saved under. */
+  name = $state('');
+  model = $state<ModelName>('passfail');
+  countUnit = $state<CountUnit>('perUnit');
+  /** Quality texts per model, so switching the model and back keeps both. */
+  quality = $state({ passfail: { acceptable: '1', rejectable: '10' }, count: { acceptable: '0.5', rejectable: '2' } });
+  producerRisk = $state('5');
+  consumerRisk = $state('10');
+  truncationMode = $state<TruncationMode>('none');
+  truncationItems = $state('');
+  fit = $state<FitMode>('wald');
+
+  readonly scale = $derived(qualityScale(this.model, this.countUnit));
+  readonly reading: DraftReading = $derived(this.read());
+
+  /** Changes the count unit and rewrites the typed rates so they keep their meaning. */
+  setCountUnit(unit: CountUnit): void {
+    if (unit === this.countUnit) return;
+    const ratio = qualityScale('count', unit).factor / qualityScale('count', this.countUnit).factor;
+    for (const key of ['acceptable', 'rejectable'] as const) {
+      const value = parseDecimal(this.quality.count[key]);
+      if (value !== null) this.quality.count[key] = decimalText(value * ratio);
+    }
+    this.countUnit = unit;
+  }
+
+  /** Fills the form from a saved or imported plan. */
+  load(spec: PlanSpec, name: string): void {
+    this.name = name;
+    this.model = spec.model;
+    const scale = qualityScale(spec.model, this.countUnit);
+    const [low, high] = spec.model === 'passfail' ? [spec.p0, spec.p1] : [spec.lambda0, spec.lambda1];
+    this.quality[spec.model] = { acceptable: decimalText(low * scale.factor), rejectable: decimalText(high * scale.factor) };
+    this.producerRisk = decimalText(spec.alpha * 100);
+    this.consumerRisk = decimalText(spec.beta * 100);
+    this.truncationMode = spec.truncation ? 'fixed' : 'none';
+    this.truncationItems = spec.truncation ? String(spec.truncation) : '';
+    this.fit = spec.fit ?? 'wald';
+  }
+
+  private read(): DraftReading {
+    const scale = this.scale;
+    const texts = this.quality[this.model];
+    const unitHint = this.model === 'passfail' ? 'in percent, e.g. 1.5' : `as nonconformities ${scale.short}, e.g. 0.5`;
+    const numbers: Partial<Record<DraftField, number>> = {};
+    const fields: [DraftField, string, string][] = [
+      ['acceptable', texts.acceptable, `Acceptable quality ${scale.symbols[0]} must be a number ${unitHint}.`],
+      ['rejectable', texts.rejectable, `Rejectable quality ${scale.symbols[1]} must be a number ${unitHint}.`],
+      ['producerRisk', this.producerRisk, "Producer's risk α must be a number in percent, e.g. 5."],
+      ['consumerRisk', this.consumerRisk, "Consumer's risk β must be a number in percent, e.g. 10."],
+    ];
+    for (const [field, text, message] of fields) {
+      const value = parseDecimal(text);
+      if (value === null) return { ok: false, field, message };
+      numbers[field] = value;
+    }
+    let truncation: number | null = null;
+    if (this.truncationMode === 'fixed') {
+      const items = parseDecimal(this.truncationItems);
+      if (items === null || !Number.isInteger(items) || items < 1) {
+        return { ok: false, field: 'truncation', message: 'Truncation must be a whole number of items, 1 or more (or choose no truncation).' };
+      }
+      truncation = items;
+    }
+    const low = numbers.acceptable! / scale.factor;
+    const high = numbers.rejectable! / scale.factor;
+    const common = { alpha: numbers.producerRisk! / 100, beta: numbers.consumerRisk! / 100, truncation, fit: this.fit };
+    const spec: PlanSpec =
+      this.model === 'passfail' ? { model: 'passfail', p0: low, p1: high, ...common } : { model: 'count', lambda0: low, lambda1: high, ...common };
+    return { ok: true, spec, suggestTruncation: this.truncationMode === 'suggested' };
+  }
+}
