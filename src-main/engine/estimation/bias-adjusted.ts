@@ -40,11 +40,11 @@ export function biasAdjustedEstimate(evaluator: StoppingEvaluator, observed: { n
   const naive = total / n;
   if (naive === 0) return 0;
   const meanNaive = (theta: number): number => naiveEstimateBias(evaluator, theta) + theta;
-  const top =
-    evaluator.qualityUpperLimit === Number.POSITIVE_INFINITY
-      ? bracketAbove(meanNaive, naive, Math.max(2 * naive, 1e-3))
-      : evaluator.qualityUpperLimit;
-  if (top === Number.POSITIVE_INFINITY) return top;
-  if (meanNaive(top) <= naive) return top;
-  return solveIncreasing(meanNaive, naive, 0, top);
+  if (evaluator.qualityUpperLimit !== Number.POSITIVE_INFINITY) {
+    return solveIncreasing(meanNaive, naive, 0, evaluator.qualityUpperLimit);
+  }
+  const start = Math.max(2 * naive, 1e-3);
+  const high = bracketAbove(meanNaive, naive, start);
+  if (high === Number.POSITIVE_INFINITY) return high;
+  return solveIncreasing(meanNaive, naive, high === start ? 0 : high / 2, high);
 }

@@ -67,15 +67,12 @@ export function stagewiseInference(
   const top = evaluator.qualityUpperLimit;
   // Rates have no upper limit: start the bracket above both the hypotheses and the observed rate.
   const start = Math.max(2 * evaluator.hypotheses.theta1, (2 * total) / n, 1e-3);
-  const bracket = (f: (theta: number) => number, target: number): number =>
-    top === Number.POSITIVE_INFINITY ? bracketAbove(f, target, start) : top;
-
   const solve = (f: (theta: number) => number, target: number): number => {
-    if (f(0) >= target) return 0;
-    const high = bracket(f, target);
+    if (top !== Number.POSITIVE_INFINITY) return solveIncreasing(f, target, 0, top);
+    const high = bracketAbove(f, target, start);
     if (high === Number.POSITIVE_INFINITY) return high;
-    if (f(high) < target) return high; // never reached inside the quality range
-    return solveIncreasing(f, target, 0, high);
+    // Below high / 2 the last doubling already found f < target.
+    return solveIncreasing(f, target, high === start ? 0 : high / 2, high);
   };
 
   const lower = solve(atLeast, gamma);

@@ -40,7 +40,7 @@ export interface StagewiseTail {
 }
 
 export interface StoppingEvaluatorOptions {
-  /** Untruncated plans: stop once the undecided probability is below this. Default 1e-14. */
+  /** Untruncated plans: stop once the undecided probability is below this. Default 1e-12, as the engine's OC. */
   tolerance?: number;
   /** Untruncated plans: hard cap on the item count. Default 1,000,000. */
   maxSteps?: number;
@@ -88,7 +88,7 @@ export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluat
   const plan = resolvePlan(spec);
   const lines = plan.lines;
   const countStep = plan.model.countStep;
-  const tolerance = options.tolerance ?? 1e-14;
+  const tolerance = options.tolerance ?? 1e-12;
   if (!(tolerance > 0 && tolerance < 1)) throw new PlanParameterError('tolerance', tolerance, 'a number in (0, 1)');
   const maxSteps = lines.truncation ?? options.maxSteps ?? 1_000_000;
   if (!Number.isInteger(maxSteps) || maxSteps < 1) throw new PlanParameterError('maxSteps', maxSteps, 'an integer >= 1');
@@ -165,7 +165,6 @@ export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluat
     m[0] = 1;
     let low = 0;
     let high = 0;
-    let stopped = 0;
     let n = 0;
     while (n < maxSteps) {
       n += 1;
@@ -194,7 +193,6 @@ export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluat
         for (let d = low; d <= high; d++) {
           const accepted = d <= acceptBelow || (d < rejectFrom && d <= truncationAcceptance);
           stop(StagewiseSide.truncation, n, d, buffer[d], accepted);
-          stopped += buffer[d];
           buffer[d] = 0;
         }
         high = low - 1;
@@ -202,17 +200,18 @@ export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluat
       }
       while (low <= high && low <= acceptBelow) {
         stop(StagewiseSide.accept, n, low, buffer[low], true);
-        stopped += buffer[low];
         buffer[low] = 0;
         low += 1;
       }
       while (high >= low && high >= rejectFrom) {
         stop(StagewiseSide.reject, n, high, buffer[high], false);
-        stopped += buffer[high];
         buffer[high] = 0;
         high -= 1;
       }
-      if (low > high || 1 - stopped < tolerance) break;
+      // Sum the live band itself: 1 - (stopped mass) stalls near 1e-13 from rounding over long runs.
+      let remaining = 0;
+      for (let d = low; d <= high; d++) remaining += buffer[d];
+      if (low > high || remaining < tolerance) break;
     }
     let undecided = 0;
     for (let d = low; d <= high; d++) {
