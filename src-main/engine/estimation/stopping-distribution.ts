@@ -161,8 +161,7 @@ export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluat
     ensureCapacity(Math.min(maxSteps, 256));
     const p = quality;
     const q = 1 - quality;
-    const m = mass;
-    m[0] = 1;
+    mass[0] = 1;
     let low = 0;
     let high = 0;
     let n = 0;
