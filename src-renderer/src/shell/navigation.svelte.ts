@@ -1,6 +1,7 @@
 /** Which place of the job is showing; kept in the address fragment so a reload stays put. */
 export const places = [
   { id: 'plan', label: 'Plan', hint: 'Design a test before the run' },
+  { id: 'inspect', label: 'Inspect', hint: 'Enter results of a run on the floor' },
 ] as const;
 
 export type PlaceId = (typeof places)[number]['id'];
