@@ -158,6 +158,24 @@ test('a file that is not a plan is refused with a message saying why', async ({ 
   await expect(page.getByLabel('Acceptable quality p0')).toHaveValue('1');
 });
 
+test('count data take rates per unit or per 100 units and keep their meaning when the unit changes', async ({ page, host, request }) => {
+  const expected = await engineDesign(request, host, { model: 'count', lambda0: 0.5, lambda1: 2, alpha: 0.05, beta: 0.1 });
+  await page.goto(host.url);
+  await page.getByLabel('Nonconformities counted per unit').check();
+  await page.getByLabel('Acceptable quality λ0').fill('0.5');
+  await page.getByLabel('Rejectable quality λ1').fill('2');
+  await expect(page.getByTestId('single-n')).toHaveText(String(expected.single.n));
+  await expect(page.getByTestId('exact-alpha')).toHaveText(percent(expected.exact.alpha));
+  await page.getByLabel('Rates').selectOption('per100');
+  await expect(page.getByLabel('Acceptable quality λ0')).toHaveValue('50');
+  await expect(page.getByLabel('Rejectable quality λ1')).toHaveValue('200');
+  await expect(page.getByTestId('chart-oc')).toContainText('Quality, per 100 units');
+  await expect(page.getByTestId('exact-alpha')).toHaveText(percent(expected.exact.alpha));
+  // The pass/fail values typed before are still there when switching back.
+  await page.getByLabel('Pass/fail items').check();
+  await expect(page.getByLabel('Acceptable quality p0')).toHaveValue('1');
+});
+
 test('the table copies as CSV', async ({ page, host, context }) => {
   await context.grantPermissions(['clipboard-read', 'clipboard-write']);
   await page.goto(host.url);
@@ -184,7 +202,12 @@ for (const size of [
       const toggle = page.getByRole('button', { name: /Switch to (light|dark) theme/ });
       if ((await page.locator('html').getAttribute('data-theme')) !== theme) await toggle.click();
       await expect(page.locator('html')).toHaveAttribute('data-theme', theme);
-      await page.mouse.move(400, 10);
+      // Hover the OC curve so the picture also shows the read-out in the legend.
+      const oc = page.getByTestId('chart-oc').locator('.u-over');
+      await oc.scrollIntoViewIfNeeded();
+      await oc.hover({ position: { x: 60, y: 40 } });
+      await expect(page.getByTestId('chart-oc').locator('.u-legend .u-value').first()).not.toHaveText('–');
+      await page.locator('main.stage').evaluate((stage) => stage.scrollTo(0, 0));
       await page.waitForTimeout(300);
       const name = `test/artifacts/plan-workspace-${size.width}x${size.height}-${theme}`;
       await page.screenshot({ path: `${name}.png` });
