@@ -1,8 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designPlan } from '../../src-main/engine/index.js';
-import type { PlanSpec } from '../../src-main/engine/index.js';
-
-const nist: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+import { nist } from './plan-fixtures.js';
 
 describe('designPlan', () => {
   it('has exactly the keys of the CLI contract, and the extras', () => {

@@ -1,16 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { createExactEvaluator, createPlanEvaluator, waldBoundaries } from '../../src-main/engine/index.js';
-import type { IntegerLines, PlanSpec } from '../../src-main/engine/index.js';
+import { createExactEvaluator, createPlanEvaluator } from '../../src-main/engine/index.js';
 import { enumerateBernoulli, enumeratePoisson } from './brute-force.js';
-
-const nist: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
-const montgomery: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.06, alpha: 0.05, beta: 0.1 };
-
-function linesOf(spec: PlanSpec, truncation: number | null = null): IntegerLines {
-  const { h1, h2, slope } = waldBoundaries(spec);
-  return { h1, h2, slope, truncation };
-}
+import { linesOf, montgomery, nist } from './plan-fixtures.js';
 
 // Suggested tolerances of reference-values §9: 1e-4 absolute for probabilities, 1e-3 relative for ASN.
 function expectPoint(actual: { accept: number; asn: number }, oc: number, asn: number): void {

@@ -4,14 +4,9 @@ import {
   decisionAt,
   rejectionNumber,
   truncationAcceptanceNumber,
-  waldBoundaries,
 } from '../../src-main/engine/index.js';
-import type { IntegerLines, PlanSpec } from '../../src-main/engine/index.js';
-
-function linesOf(spec: PlanSpec, truncation: number | null = null): IntegerLines {
-  const { h1, h2, slope } = waldBoundaries(spec);
-  return { h1, h2, slope, truncation };
-}
+import type { IntegerLines } from '../../src-main/engine/index.js';
+import { linesOf } from './plan-fixtures.js';
 
 /** Expands "first-last: accept reject" rows (null for x) into per-n checks. */
 function expectTable(lines: IntegerLines, rows: Array<[number, number, number | null, number | null]>): void {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, decide, designPlan, liveState } from '../../src-main/engine/index.js';
 import type { PlanSpec } from '../../src-main/engine/index.js';
+import { nist } from './plan-fixtures.js';
 
-const nist: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 const counts: PlanSpec = { model: 'count', lambda0: 1, lambda1: 2, alpha: 0.1, beta: 0.1 };
 
 /** Feeds `result` repeatedly from (n, total) and returns how many items it took to decide `target`. */

@@ -1,9 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designPlan, neutralQuality, resolvePlan, waldPoint } from '../../src-main/engine/index.js';
 import type { PlanSpec } from '../../src-main/engine/index.js';
-
-const nist: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
-const montgomery: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.06, alpha: 0.05, beta: 0.1 };
+import { montgomery, nist } from './plan-fixtures.js';
 
 function wald(spec: PlanSpec, theta: number) {
   const plan = resolvePlan(spec);
