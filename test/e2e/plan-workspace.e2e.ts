@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import type { APIRequestContext, Page } from '@playwright/test';
-import { expect, test, type RunningHost } from './support/browserHostFixture';
+import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 
 // Check values: NIST/SEMATECH e-Handbook of Statistical Methods §6.2.6 — p1 = 0.01, alpha = 0.05,
 // p2 = 0.10, beta = 0.10 gives h1 = 0.939, h2 = 1.205, s = 0.0397 (reference-values CV-02/03);
