@@ -1,4 +1,4 @@
-import type { DecisionRecordInput, QualityLevel } from './recordInput.js';
+import type { DecisionRecordInput, QualityEstimate, QualityLevel } from './recordInput.js';
 import { formatCount, formatFixed, formatNumber, formatTimestamp } from './format.js';
 import type { RecordLayout } from './layout.js';
 import { stateHeadline } from './titleBlock.js';
@@ -22,8 +22,8 @@ export function drawTestedSection(layout: RecordLayout, input: DecisionRecordInp
   layout.heading('What was tested');
   layout.keyValues([
     ['Source', subject.source],
-    ['Part', subject.part],
-    ['Characteristic', subject.characteristic],
+    ['Part', subject.part ?? 'not recorded with the run'],
+    ['Characteristic', subject.characteristic ?? 'not recorded with the run'],
     ['Lot / batch', subject.lotId],
     ['Lot size', subject.lotSize === null ? 'not stated' : `${formatCount(subject.lotSize)} items`],
     [subject.inspectors.length > 1 ? 'Inspectors' : 'Inspector', subject.inspectors.join(', ')],
@@ -39,7 +39,7 @@ export function drawPlanSection(layout: RecordLayout, input: DecisionRecordInput
   const { boundaries } = plan;
   layout.heading('Plan');
   layout.keyValues([
-    ['Plan', `${plan.planId}, version ${plan.planVersion}`],
+    ['Plan', `${plan.planName === undefined ? '' : `${plan.planName}, id `}${plan.planId}, version ${plan.planVersion}`],
     ['Model', MODEL_NAMES[plan.model]],
     ['Hypotheses', `${hypothesis('H0 (acceptable quality)', plan.acceptableQuality)}\n${hypothesis('H1 (rejectable quality)', plan.rejectableQuality)}`],
     ["Producer's risk (alpha)", risk(plan.producerRiskNominal, plan.producerRiskExact)],
@@ -69,11 +69,21 @@ export function drawDecisionSection(layout: RecordLayout, input: DecisionRecordI
     ['Items inspected', formatCount(decision.itemsInspected)],
     [counted, formatCount(decision.nonconformingFound)],
     ['Final LLR', formatFixed(decision.finalLogLikelihoodRatio, 4)],
+    ...estimateRows(estimate),
+  ]);
+}
+
+function estimateRows(estimate: QualityEstimate | null): Array<[string, string]> {
+  if (estimate === null) return [['Quality estimate', 'none yet: no items inspected']];
+  const named = estimate.pointEstimateName === undefined ? '' : `${estimate.pointEstimateName} `;
+  const naive =
+    estimate.naiveEstimate === undefined ? '' : `\nnaive d/n = ${formatNumber(estimate.naiveEstimate)}, for comparison only (biased after a sequential stop)`;
+  return [
     [
       'Quality estimate',
-      `${formatNumber(estimate.pointEstimate)} ${estimate.unit}; ${formatNumber(estimate.confidenceLevel * 100, 3)} % confidence interval ` +
-        `${formatNumber(estimate.lower)} to ${formatNumber(estimate.upper)}`,
+      `${named}${formatNumber(estimate.pointEstimate)} ${estimate.unit}; ${formatNumber(estimate.confidenceLevel * 100, 3)} % confidence interval ` +
+        `${formatNumber(estimate.lower)} to ${formatNumber(estimate.upper)}${naive}`,
     ],
     ['Estimation method', estimate.methodName],
-  ]);
+  ];
 }

@@ -25,14 +25,17 @@ export function drawPageFooters(doc: PDFKit.PDFDocument, input: DecisionRecordIn
     doc.moveTo(left, y - 5).lineTo(left + width, y - 5).lineWidth(0.4).strokeColor(INK.rule).stroke();
     doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.small).fillColor(INK.muted);
     const prefix = input.interim ? 'INTERIM ' : '';
-    doc.text(
+    const label = pageLabel(index - range.start + 1, range.count);
+    // The left text takes all the room the page label leaves, so real run ids fit on one line.
+    const labelWidth = doc.font(FONT_BOLD).widthOfString(label);
+    doc.font(FONT_REGULAR).text(
       `${prefix}Decision record ${input.header.recordId}, run ${input.header.runId}, fingerprint ${input.fingerprint.slice(0, 12)}...`,
       left,
       y,
-      { width: width * 0.75, lineBreak: false },
+      { width: width - labelWidth - 12, lineBreak: false },
     );
-    doc.font(FONT_BOLD).fillColor(INK.text).text(pageLabel(index - range.start + 1, range.count), left + width * 0.75, y, {
-      width: width * 0.25,
+    doc.font(FONT_BOLD).fillColor(INK.text).text(label, left + width - labelWidth - 12, y, {
+      width: labelWidth + 12,
       align: 'right',
       lineBreak: false,
     });

@@ -26,8 +26,9 @@ export interface RecordHeader {
 export interface RecordSubject {
   /** The source: a supplier, line or machine. */
   source: string;
-  part: string;
-  characteristic: string;
+  /** Null when the run does not name the part or the characteristic; the record says so. */
+  part: string | null;
+  characteristic: string | null;
   lotId: string;
   /** Items in the lot; null when the lot size is not known. */
   lotSize: number | null;
@@ -68,6 +69,8 @@ export interface PlanTruncation {
 
 export interface RecordPlan {
   planId: string;
+  /** The plan's name as saved, printed beside its id; omitted when the plan has none. */
+  planName?: string;
   planVersion: string;
   model: RecordModel;
   /** H0: acceptable quality (p0 or lambda0). */
@@ -130,6 +133,10 @@ export interface QualityEstimate {
   /** Name of the method, printed beside the numbers (say if it ignores the stopping rule). */
   methodName: string;
   pointEstimate: number;
+  /** What the point estimate is, printed before it, e.g. "bias-adjusted"; omitted for a plain d/n. */
+  pointEstimateName?: string;
+  /** The naive d/n, printed for comparison when the point estimate is another one. */
+  naiveEstimate?: number;
   confidenceLevel: number;
   lower: number;
   upper: number;
@@ -151,7 +158,8 @@ export interface DecisionRecordInput {
   /** One step per item count, from 1 up to at least the items inspected. */
   boundarySteps: BoundaryStep[];
   decision: RecordDecision;
-  qualityEstimate: QualityEstimate;
+  /** Null only while no item has been inspected: there is nothing to estimate from. */
+  qualityEstimate: QualityEstimate | null;
   /** The run journal's final SHA-256, 64 lower-case hex digits. */
   fingerprint: string;
   /** True for a run not yet decided: the record says so on every page. */
@@ -215,7 +223,7 @@ export function validateDecisionRecordInput(input: DecisionRecordInput): void {
   }
   requireTimestamp('header.generatedAt', header.generatedAt);
   for (const key of ['source', 'part', 'characteristic', 'lotId', 'timeZone'] as const) {
-    requireText(`subject.${key}`, subject[key]);
+    if (subject[key] !== null) requireText(`subject.${key}`, subject[key]);
   }
   if (subject.lotSize !== null) requireCount('subject.lotSize', subject.lotSize);
   if (subject.inspectors.length === 0) {
@@ -265,10 +273,17 @@ export function validateDecisionRecordInput(input: DecisionRecordInput): void {
   if (input.interim !== undecided) {
     throw new DecisionRecordInputError('interim', input.interim, `${undecided} for a run in state '${decision.state}'`);
   }
-  requireText('qualityEstimate.methodName', qualityEstimate.methodName);
-  requireProbability('qualityEstimate.confidenceLevel', qualityEstimate.confidenceLevel);
-  for (const key of ['pointEstimate', 'lower', 'upper'] as const) {
-    requireFinite(`qualityEstimate.${key}`, qualityEstimate[key]);
+  if (qualityEstimate === null) {
+    if (decision.itemsInspected !== 0) {
+      throw new DecisionRecordInputError('qualityEstimate', null, `an estimate once items are inspected (${decision.itemsInspected} are)`);
+    }
+  } else {
+    requireText('qualityEstimate.methodName', qualityEstimate.methodName);
+    requireProbability('qualityEstimate.confidenceLevel', qualityEstimate.confidenceLevel);
+    for (const key of ['pointEstimate', 'lower', 'upper'] as const) {
+      requireFinite(`qualityEstimate.${key}`, qualityEstimate[key]);
+    }
+    if (qualityEstimate.naiveEstimate !== undefined) requireFinite('qualityEstimate.naiveEstimate', qualityEstimate.naiveEstimate);
   }
   if (typeof input.fingerprint !== 'string' || !FINGERPRINT_PATTERN.test(input.fingerprint)) {
     throw new DecisionRecordInputError('fingerprint', input.fingerprint, '64 lower-case hex digits (SHA-256)');

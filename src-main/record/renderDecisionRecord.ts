@@ -5,7 +5,7 @@ import PDFDocument from 'pdfkit';
 import { validateDecisionRecordInput, type DecisionRecordInput } from './recordInput.js';
 import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './fonts.js';
 import { FOOTER_RESERVE, RecordLayout } from './layout.js';
-import { drawTitleBlock } from './titleBlock.js';
+import { drawTitleBlock, subjectLine } from './titleBlock.js';
 import { drawDecisionSection, drawPlanSection, drawTestedSection } from './detailSections.js';
 import { drawEvidenceChart } from './evidenceChart.js';
 import { drawApprovalSection, drawCautionsSection, drawIntegritySection } from './closingSections.js';
@@ -41,7 +41,7 @@ function createRecordDocument(input: DecisionRecordInput, fonts: RecordFontFiles
     info: {
       Title: metadataText(`${input.interim ? 'Interim decision record' : 'Decision record'} ${header.recordId}`),
       Author: metadataText(`${header.organisationName}, ${header.site}`),
-      Subject: metadataText(`Run ${header.runId}: ${subject.part} from ${subject.source}, lot ${subject.lotId}`),
+      Subject: metadataText(`Run ${header.runId}: ${subjectLine(subject)}`),
       Keywords: fingerprintKeyword(input.fingerprint),
       Creator: metadataText(`${header.softwareName} ${header.softwareVersion}`),
       CreationDate: new Date(header.generatedAt),

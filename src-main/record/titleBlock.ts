@@ -1,4 +1,4 @@
-import type { DecisionRecordInput, RecordState } from './recordInput.js';
+import type { DecisionRecordInput, RecordState, RecordSubject } from './recordInput.js';
 import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
 import { formatCount, formatFixed, formatTimestamp } from './format.js';
 import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
@@ -21,6 +21,11 @@ export function stateHeadline(state: RecordState): string {
 
 export const INTERIM_NOTICE =
   'INTERIM RECORD: this run has not reached a decision. It documents the evidence so far and must not be used to release or reject the lot.';
+
+/** "M6 flange nut from Kestrel Fasteners, lot KF-1": what the record is about, in one line. */
+export function subjectLine(subject: RecordSubject): string {
+  return `${subject.part ?? 'Lot'} from ${subject.source}, ${subject.part === null ? '' : 'lot '}${subject.lotId}`;
+}
 
 /** Issuer line, title, interim notice and the decision at a glance. */
 export function drawTitleBlock(layout: RecordLayout, input: DecisionRecordInput): void {
@@ -50,7 +55,7 @@ export function drawTitleBlock(layout: RecordLayout, input: DecisionRecordInput)
     doc.font(FONT_BOLD).fontSize(TYPE_SIZE.title).fillColor(INK.text).text('Decision record', layout.left, titleTop, { width: layout.width });
   });
   layout.gap(2);
-  layout.paragraph(`${input.subject.part} from ${input.subject.source}, lot ${input.subject.lotId}`, { color: INK.muted });
+  layout.paragraph(subjectLine(input.subject), { color: INK.muted });
   layout.gap(6);
 
   if (input.interim) drawInterimNotice(layout);

@@ -1,0 +1,234 @@
+/**
+ * The glue from a real run to its decision record: the run journal (entries, voids, close), the
+ * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
+ * the software's identity. The quality estimate is the sequential one once the run is decided.
+ */
+import { designPlan, limitRows, resolvePlan, decide, PlanParameterError, type PlanSpec } from '../engine/index.js';
+import { estimateAfterStop } from '../engine/estimation/index.js';
+import { resultTotal } from '../inspection/index.js';
+import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
+import { naiveQualityEstimate } from './naiveQualityEstimate.js';
+import type {
+  BoundaryStep,
+  DecisionRecordInput,
+  EntryVoid,
+  QualityEstimate,
+  RecordDecision,
+  RecordEntry,
+  RecordPlan,
+  RecordState,
+} from './recordInput.js';
+import { localTimestamp, readRunJournal, requireVerified, type RunJournalRead } from './runJournalRead.js';
+import { softwareIdentity, type SoftwareIdentity } from './software.js';
+
+export interface RecordContext {
+  readonly settings: Pick<Settings, 'organisationName' | 'site' | 'confidenceLevel'>;
+  readonly software: SoftwareIdentity;
+  /** When the record is made; printed with this machine's UTC offset. */
+  readonly generatedAt: Date;
+}
+
+/** Items drawn past the last one inspected, so the steps just ahead stay in view. */
+const HORIZON_MARGIN = 1.1;
+const MINIMUM_HORIZON = 10;
+
+/**
+ * `DR-<random part of the run id>-<first 8 hex of the fingerprint>`: the same journal gives the same
+ * id, and a record of the run after more entries a different one. Short, so footers keep one line.
+ */
+export function recordIdFor(runId: string, fingerprint: string): string {
+  return `DR-${runId.split('-').at(-1)}-${fingerprint.slice(0, 8)}`;
+}
+
+function qualityUnit(spec: PlanSpec): string {
+  return spec.model === 'passfail' ? 'fraction nonconforming' : 'nonconformities per item';
+}
+
+function recordPlan(read: RunJournalRead): RecordPlan {
+  const { plan } = read.replay.header;
+  const { spec } = plan;
+  const design = designPlan(spec, { curvePoints: 2 });
+  const unit = qualityUnit(spec);
+  const [symbol0, symbol1] = spec.model === 'passfail' ? ['p0', 'p1'] : ['lambda0', 'lambda1'];
+  return {
+    planId: plan.id,
+    planName: plan.name,
+    planVersion: String(plan.version),
+    model: spec.model,
+    acceptableQuality: { symbol: symbol0, value: design.hypotheses.theta0, unit },
+    rejectableQuality: { symbol: symbol1, value: design.hypotheses.theta1, unit },
+    producerRiskNominal: spec.alpha,
+    consumerRiskNominal: spec.beta,
+    producerRiskExact: design.exact.alpha,
+    consumerRiskExact: design.exact.beta,
+    boundaries: design.boundaries,
+    truncation: design.truncation === null ? null : { maxItems: design.truncation, rule: design.truncationRule },
+    // The exact ASN of the integer plan as run (with its truncation), not Wald's approximation.
+    averageSampleNumberAtAcceptable: design.exact.asnH0,
+    averageSampleNumberAtRejectable: design.exact.asnH1,
+  };
+}
+
+/** Every result in journal order, each void carried with the entry it cancels. */
+function recordEntries(read: RunJournalRead): RecordEntry[] {
+  const voids = new Map<number, EntryVoid>();
+  for (const entry of read.entries) {
+    if (entry.kind !== 'void') continue;
+    const payload = entry.payload as { target: number; reason: string };
+    voids.set(payload.target, { reason: payload.reason, voidSequence: entry.seq, voidedAt: localTimestamp(entry.time, entry.offset), actor: entry.actor });
+  }
+  return read.replay.results.map((result) => ({
+    sequence: result.seq,
+    recordedAt: localTimestamp(result.time, result.offset),
+    itemId: result.itemId ?? '',
+    nonconformities: resultTotal(result.result),
+    category: result.category,
+    note: result.note,
+    actor: result.actor,
+    voided: voids.get(result.seq) ?? null,
+  }));
+}
+
+/** The item count the record's chart and the Records place draw up to. */
+export function evidenceHorizon(spec: PlanSpec, itemsInspected: number): number {
+  const { lines } = resolvePlan(spec);
+  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * itemsInspected));
+  return lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, itemsInspected));
+}
+
+function boundarySteps(spec: PlanSpec, itemsInspected: number): BoundaryStep[] {
+  return limitRows(resolvePlan(spec).lines, evidenceHorizon(spec, itemsInspected)).map((row) => ({
+    itemsInspected: row.n,
+    acceptanceNumber: row.accept,
+    rejectionNumber: row.reject,
+  }));
+}
+
+function closedState(rule: string, decision: 'accept' | 'reject'): RecordState {
+  return rule.startsWith(`${decision} at truncation`) ? `${decision} at truncation` : decision;
+}
+
+function recordDecision(read: RunJournalRead): RecordDecision {
+  const { replay } = read;
+  const close = replay.status === 'closed' ? replay.lastClose : null;
+  if (close !== null) {
+    return { state: closedState(close.rule, close.decision), rule: close.rule, itemsInspected: close.n, nonconformingFound: close.total, finalLogLikelihoodRatio: close.llr };
+  }
+  const now = decide(replay.header.plan.spec, replay.n, replay.total);
+  const reopened = replay.lastClose !== null;
+  return {
+    state: 'continue',
+    rule: reopened
+      ? `none stands: the run was reopened after its decision (${replay.lastClose?.decision}) by an override with a reason, and has not closed again; now ${now.rule}`
+      : now.rule,
+    itemsInspected: replay.n,
+    nonconformingFound: replay.total,
+    finalLogLikelihoodRatio: now.llr,
+  };
+}
+
+/**
+ * The quality estimate: for a decided run, Whitehead's bias-adjusted estimate and the stagewise
+ * exact interval from the plan's exact stopping distribution; otherwise (or where that method does
+ * not apply to the stop) the naive d/n with its fixed-sample interval, labelled as such.
+ */
+export function recordQualityEstimate(spec: PlanSpec, decision: RecordDecision, confidenceLevel: number): QualityEstimate | null {
+  const { itemsInspected: n, nonconformingFound: total } = decision;
+  if (n === 0) return null;
+  const naive = naiveQualityEstimate({ model: spec.model, itemsInspected: n, nonconformities: total, confidenceLevel });
+  if (decision.state === 'continue') {
+    return { ...naive, methodName: `Interim, the run is undecided: ${naive.methodName}` };
+  }
+  try {
+    const after = estimateAfterStop(spec, { n, total, confidence: confidenceLevel });
+    const percent = `${Number((confidenceLevel * 100).toPrecision(3))} %`;
+    return {
+      methodName:
+        `Bias-adjusted estimate (Whitehead 1986) and exact ${percent} interval from the stagewise ordering of the ` +
+        `sample space (Armitage 1958; Jennison and Turnbull 2000, section 8.4), both from the exact stopping distribution of the plan as run`,
+      pointEstimate: after.biasAdjusted,
+      pointEstimateName: 'bias-adjusted',
+      naiveEstimate: after.naive,
+      confidenceLevel,
+      lower: after.interval.lower,
+      upper: after.interval.upper,
+      unit: naive.unit,
+    };
+  } catch (error) {
+    if (!(error instanceof PlanParameterError)) throw error;
+    // E.g. a run that went on past a stopping point after an override: the stopping distribution
+    // does not describe how it stopped, so only the naive figure can be given honestly.
+    return { ...naive, methodName: `The sequential estimate does not apply to this stop (${error.message}). ${naive.methodName}` };
+  }
+}
+
+/** The time offsets the journal was written with, e.g. "UTC+01:00 (the inspecting computer's clock)". */
+function timeZoneOf(read: RunJournalRead): string {
+  const offsets = [...new Set(read.entries.map((entry) => entry.offset))];
+  return `UTC${offsets.join(', UTC')} (as recorded by the inspecting computer)`;
+}
+
+function inspectorsOf(read: RunJournalRead): string[] {
+  // Everyone who wrote an entry after the header: results, voids, overrides.
+  const names = [read.replay.header.run.inspector, ...read.entries.filter((entry) => entry.kind !== 'open').map((entry) => entry.actor)];
+  const unique = [...new Set(names.filter((name): name is string => name !== null && name.trim() !== ''))];
+  return unique.length > 0 ? unique : ['not named'];
+}
+
+/** The decision record of a run from one verified read of its journal. */
+export function decisionRecordFromRun(read: RunJournalRead, context: RecordContext): DecisionRecordInput {
+  const { header: runHeader, lastClose, status } = read.replay;
+  const { run, plan, source } = runHeader;
+  const opened = read.entries[0];
+  const decision = recordDecision(read);
+  const generated = context.generatedAt;
+  return {
+    header: {
+      organisationName: context.settings.organisationName.trim() || 'organisation not set (Settings)',
+      site: context.settings.site.trim() || 'site not set (Settings)',
+      recordId: recordIdFor(run.id, read.fingerprint),
+      runId: run.id,
+      softwareName: context.software.name,
+      softwareVersion: context.software.version,
+      generatedAt: localTimestamp(generated.toISOString(), localOffset(generated)),
+    },
+    subject: {
+      source: source.name,
+      // Runs do not record a part or characteristic yet (the run journal's header has neither).
+      part: null,
+      characteristic: null,
+      lotId: run.lot,
+      lotSize: run.lotSize,
+      inspectors: inspectorsOf(read),
+      startedAt: localTimestamp(opened.time, opened.offset),
+      endedAt: status === 'closed' && lastClose !== null ? localTimestamp(lastClose.time, closeOffset(read)) : null,
+      timeZone: timeZoneOf(read),
+    },
+    plan: recordPlan(read),
+    entries: recordEntries(read),
+    boundarySteps: boundarySteps(plan.spec, decision.itemsInspected),
+    decision,
+    qualityEstimate: recordQualityEstimate(plan.spec, decision, context.settings.confidenceLevel),
+    fingerprint: read.fingerprint,
+    interim: decision.state === 'continue',
+    approval: { inspectedBy: run.inspector, reviewedBy: null },
+  };
+}
+
+/** The offset the last close entry was written with. */
+function closeOffset(read: RunJournalRead): string {
+  return read.entries.findLast((entry) => entry.kind === 'close')?.offset ?? '+00:00';
+}
+
+/**
+ * Reads a run's journal (refusing one that does not verify), the settings and the software
+ * identity, and builds its record input.
+ */
+export async function decisionRecordForRun(dataDirectory: string, runId: string, generatedAt = new Date()): Promise<DecisionRecordInput> {
+  const [read, settings, software] = await Promise.all([
+    readRunJournal(dataDirectory, runId),
+    new SettingsRepository(dataDirectory).get(),
+    softwareIdentity(),
+  ]);
+  return decisionRecordFromRun(requireVerified(read), { settings, software, generatedAt });
+}
