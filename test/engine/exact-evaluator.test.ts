@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { createExactEvaluator, createPlanEvaluator } from '../../src-main/engine/index.js';
+import { createExactEvaluator, createPlanEvaluator, waldBoundaries } from '../../src-main/engine/index.js';
 import { enumerateBernoulli, enumeratePoisson } from './brute-force.js';
 import { linesOf, montgomery, nist } from './plan-fixtures.js';
 
