@@ -145,6 +145,8 @@ test('an unfinished run reopens from the list where it stopped', async ({ page, 
   for (let i = 0; i < 5; i++) await page.keyboard.press('NumpadAdd');
   await expect(page.getByTestId('entry-row')).toHaveCount(5);
   await page.getByTestId('leave-run').click();
+  await expect(page.locator('[data-testid="open-run"]', { hasText: 'L-2043' })).toBeVisible();
+  await page.screenshot({ path: 'test/artifacts/inspect-start-and-runs-light.png' });
   await page.locator('[data-testid="open-run"]', { hasText: 'L-2043' }).click();
   await expectEngineNumbers(page, liveState(spec, 5, 0));
   // On the main keys, minus is part of an id until the scan ends with Enter, then it records.

@@ -77,7 +77,7 @@ const activeRunKey = 'tallyline.inspect.activeRun';
 export class InspectSession {
   runs = $state.raw<RunSummary[]>([]);
   runsProblem = $state<string | null>(null);
-  /** The active run: its header, plan, state, live look-ahead and chart frame. */
+  /** The active run: its header, plan, state, live look-ahead and chart frame (its entries are in `entries`). */
   view = $state.raw<InspectionRunView | null>(null);
   entries = $state.raw<InspectionEntry[]>([]);
   pending = $state.raw<PendingEntry[]>([]);
@@ -107,7 +107,7 @@ export class InspectSession {
 
   /** Makes a run the active one in this window (a started run, or one reopened from the list). */
   show(view: InspectionRunView): void {
-    this.view = view;
+    this.view = { ...view, entries: [] };
     this.entries = view.entries;
     this.pending = [];
     this.problem = null;
