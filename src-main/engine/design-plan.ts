@@ -102,7 +102,13 @@ export function designPlan(spec: PlanSpec, options: DesignOptions = {}): PlanDes
   };
 }
 
-/** Acceptance/rejection numbers for n = 1..length; at the truncation the row holds the truncation rule. */
+/**
+ * Acceptance/rejection numbers for n = 1..length; at the truncation the row holds the truncation rule.
+ *
+ * Method: Ac(n) = floor(s n - h1) (null while negative), Re(n) = ceil(s n + h2); at n_t accept at
+ * most floor(s n_t), reject from one more.
+ * References: NIST/SEMATECH e-Handbook §6.2.6 (the table form); reference-values CV-02 and CV-06.
+ */
 export function limitRows(lines: IntegerLines, length: number): LimitRow[] {
   const rows: LimitRow[] = [];
   const atTruncation = truncationAcceptanceNumber(lines);
@@ -116,7 +122,12 @@ export function limitRows(lines: IntegerLines, length: number): LimitRow[] {
   return rows;
 }
 
-/** The truncation rule in words. */
+/**
+ * The truncation rule in words.
+ *
+ * Method: at n_t accept iff LLR <= 0, i.e. cumulative count <= floor(s n_t).
+ * References: reference-values CV-06 (the rule is a stated choice).
+ */
 export function truncationRule(lines: IntegerLines): string {
   const atTruncation = truncationAcceptanceNumber(lines);
   if (atTruncation === null) return 'no truncation: inspection continues until a line is crossed';

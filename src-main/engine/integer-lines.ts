@@ -30,7 +30,11 @@ export function acceptanceNumber(lines: IntegerLines, n: number): number | null 
   return raw < 0 ? null : raw;
 }
 
-/** Ac(n) as an integer that may be negative (no acceptance yet); for hot loops. */
+/**
+ * Ac(n) as an integer that may be negative (no acceptance yet); for hot loops.
+ *
+ * Method and References: as acceptanceNumber.
+ */
 export function rawAcceptanceNumber(lines: IntegerLines, n: number): number {
   const x = lines.slope * n - lines.h1;
   return Math.floor(x + guarded(x));
@@ -59,7 +63,12 @@ export function truncationAcceptanceNumber(lines: IntegerLines): number | null {
   return lines.truncation === null ? null : neutralCount(lines, lines.truncation);
 }
 
-/** The largest count with LLR <= 0 after n items: floor(slope n), guarded. */
+/**
+ * The largest count with LLR <= 0 after n items.
+ *
+ * Method: LLR = k (d - s n) <= 0 iff d <= s n, so floor(s n) with the 1e-12 guard.
+ * References: reference-values CV-06 and §9.
+ */
 export function neutralCount(lines: IntegerLines, n: number): number {
   const x = lines.slope * n;
   return Math.floor(x + guarded(x));

@@ -14,6 +14,11 @@ export interface WaldPoint {
 /**
  * The nonzero root h of ln E_theta[exp(h z)] = 0; +-Infinity when there is none (a quality at
  * the edge, e.g. p = 0, where the OC is 1 or 0).
+ *
+ * Method: ln E[e^{hz}] is convex, 0 at h = 0 with slope E[z], so the other root lies on the side
+ * opposite to the sign of E[z]; bracket it by doubling, then bisect to machine precision.
+ * References: Wald, A. (1947), Sequential Analysis, §A.1 (existence and sign of h);
+ * reference-values §9 (bisection).
  */
 export function solveWaldExponent(model: ModelDefinition<PlanSpec>, spec: PlanSpec, theta: number): number {
   const mean = model.meanIncrement(spec, theta);
@@ -42,6 +47,7 @@ export function solveWaldExponent(model: ModelDefinition<PlanSpec>, spec: PlanSp
  * Method: OC = (A^h - 1)/(A^h - B^h); with x = h ln A, y = h ln B this is
  * expm1(-x)/expm1(y - x) for h > 0 and (e^{-y} - e^{x-y})/(-expm1(x - y)) for h < 0;
  * the limit at h = 0 is ln A/(ln A - ln B).
+ * References: Wald, A. (1947), Sequential Analysis, §3.2.
  */
 export function waldOcFromExponent(h: number, lnA: number, lnB: number): number {
   if (h === Number.POSITIVE_INFINITY) return 1;

@@ -11,7 +11,12 @@ const models = {
 
 export const modelNames = Object.keys(models) as PlanSpec['model'][];
 
-/** The model definition for a spec, untyped in the spec so generic code can use it. */
+/**
+ * The model definition for a spec, untyped in the spec so generic code can use it.
+ *
+ * Method: lookup on spec.model in the registry of models.
+ * References: none (plumbing).
+ */
 export function modelOf(spec: PlanSpec): ModelDefinition<PlanSpec> {
   const name = (spec as { model?: unknown }).model;
   if (typeof name !== 'string' || !Object.hasOwn(models, name)) {
@@ -20,7 +25,13 @@ export function modelOf(spec: PlanSpec): ModelDefinition<PlanSpec> {
   return models[name as PlanSpec['model']] as unknown as ModelDefinition<PlanSpec>;
 }
 
-/** Validates the spec once (throws PlanParameterError) and returns its model definition. */
+/**
+ * Validates the spec once (throws PlanParameterError) and returns its model definition.
+ *
+ * Method: the model's own checks (qualities ordered and in range) and the shared ones
+ * (risks in (0, 1) with alpha + beta < 1, truncation a positive integer).
+ * References: Wald, A. (1947), Sequential Analysis, §3.2 (why alpha + beta < 1: A > 1 > B).
+ */
 export function validatedModel(spec: PlanSpec): ModelDefinition<PlanSpec> {
   if (spec === null || typeof spec !== 'object') {
     throw new PlanParameterError('spec', spec, 'a plan specification object');
