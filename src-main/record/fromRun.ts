@@ -194,9 +194,9 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
     },
     subject: {
       source: source.name,
-      // Runs do not record a part or characteristic yet (the run journal's header has neither).
-      part: null,
-      characteristic: null,
+      // The plan version copied into the journal's header names them when it was saved with them.
+      part: plan.part ?? null,
+      characteristic: plan.characteristic ?? null,
       lotId: run.lot,
       lotSize: run.lotSize,
       inspectors: inspectorsOf(read),

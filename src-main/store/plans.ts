@@ -18,6 +18,8 @@ export const planVersionSchema = z.object({
   version: z.number().int().positive(),
   name: z.string().min(1),
   sourceId: z.string().nullable(),
+  part: z.string().min(1).optional(),
+  characteristic: z.string().min(1).optional(),
   spec: planSpecSchema,
   createdAt: z.string(),
 });
@@ -29,6 +31,9 @@ export interface PlanVersion {
   readonly name: string;
   /** The source this plan was made for, or null for a plan not tied to one. */
   readonly sourceId: string | null;
+  /** The part of the source this plan is for, and the characteristic checked (absent when not named). */
+  readonly part?: string;
+  readonly characteristic?: string;
   readonly spec: PlanSpec;
   readonly createdAt: string;
 }
@@ -38,6 +43,8 @@ export interface PlanDraft {
   readonly id?: string;
   readonly name: string;
   readonly sourceId?: string | null;
+  readonly part?: string | null;
+  readonly characteristic?: string | null;
   readonly spec: PlanSpec;
 }
 
@@ -62,6 +69,9 @@ export class PlanRepository {
         version,
         name: draft.name.trim() || 'Untitled plan',
         sourceId: draft.sourceId ?? null,
+        // Left out rather than null when not named, so files of plans without them stay as they were.
+        ...(draft.part?.trim() ? { part: draft.part.trim() } : {}),
+        ...(draft.characteristic?.trim() ? { characteristic: draft.characteristic.trim() } : {}),
         spec,
         createdAt: this.clock().toISOString(),
       };

@@ -20,7 +20,7 @@ export const DEFAULT_SETTINGS: Settings = {
   format: SETTINGS_FORMAT,
   organisationName: '',
   site: '',
-  confidenceLevel: 0.95,
+  confidenceLevel: 0.9,
   theme: 'system',
 };
 

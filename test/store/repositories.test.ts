@@ -78,7 +78,7 @@ describe('settings', () => {
   it('gives defaults before anything is saved and keeps what was saved', async () => {
     const data = await tempFolder();
     const settings = new SettingsRepository(data);
-    expect(await settings.get()).toMatchObject({ confidenceLevel: 0.95, theme: 'system' });
+    expect(await settings.get()).toMatchObject({ confidenceLevel: 0.9, theme: 'system' });
     await settings.update({ organisationName: 'Northwind', theme: 'dark' });
     expect(await new SettingsRepository(data).get()).toMatchObject({ organisationName: 'Northwind', theme: 'dark', site: '' });
   });
