@@ -14,6 +14,9 @@ const commands: CommandTable = {
   'run show': { summary: 'print a run: plan, entries and state', load: async () => ({ command: (await import('./cli/run.js')).showCommand }) },
   feed: { summary: 'record results for a run from stdin, one a line', load: () => import('./cli/feed.js') },
   verify: { summary: "re-read a run's journal and verify its hash chain", load: () => import('./cli/verify.js') },
+  backup: { summary: 'write the whole data folder to one archive file', load: () => import('./cli/backup.js') },
+  restore: { summary: 'replace the data folder with a verified archive (the old one is kept)', load: () => import('./cli/restore.js') },
+  demo: { summary: 'fill an empty data folder with the invented demo scenario', load: () => import('./cli/demo.js') },
 };
 
 async function readStdin(): Promise<string> {
