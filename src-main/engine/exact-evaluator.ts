@@ -42,6 +42,47 @@ export interface ExactEvaluator {
   evaluateMany(thetas: ArrayLike<number>, accept: Float64Array, asn: Float64Array, undecided?: Float64Array): void;
 }
 
+/** One Bernoulli step of the recursion, in place: mass[low..high] -> mass[low..high+1]. */
+function bernoulliStep(mass: Float64Array, low: number, high: number, p: number, q: number): void {
+  mass[high + 1] = mass[high] * p;
+  for (let d = high; d > low; d--) mass[d] = mass[d] * q + mass[d - 1] * p;
+  mass[low] *= q;
+}
+
+/**
+ * One Poisson step of the recursion: mass[low..high] convolved with the step law into
+ * mass[low..rejectFrom-1] (through `next`); returns the mass that reaches rejectFrom or more.
+ */
+function poissonStep(
+  mass: Float64Array,
+  next: Float64Array,
+  stepPmf: Float64Array,
+  stepTail: Float64Array,
+  low: number,
+  high: number,
+  rejectFrom: number,
+): number {
+  const lastTail = stepTail.length - 1;
+  let tailMass = 0;
+  for (let d = low; d <= high; d++) {
+    const gap = rejectFrom - d;
+    tailMass += mass[d] * (gap <= 0 ? 1 : stepTail[gap < lastTail ? gap : lastTail]);
+  }
+  const newHigh = rejectFrom - 1;
+  for (let target = low; target <= newHigh; target++) {
+    let sum = 0;
+    const top = target < high ? target : high;
+    for (let d = low; d <= top; d++) {
+      const jump = target - d;
+      if (jump < stepPmf.length) sum += mass[d] * stepPmf[jump];
+    }
+    next[target] = sum;
+  }
+  for (let d = low; d <= high; d++) mass[d] = 0;
+  for (let target = low; target <= newHigh; target++) mass[target] = next[target];
+  return tailMass;
+}
+
 /**
  * Builds an exact evaluator for integer lines whose count moves by Bernoulli (pass/fail) or
  * Poisson (count per unit) steps. Lines are trusted (validated by the caller); the hot loop takes
@@ -131,7 +172,15 @@ export function createExactEvaluator(
       return out;
     }
     if (countStep === 'poisson') fillPoissonStep(theta);
-    mass[startTotal] = 1;
+    // Locals, not closure variables, in the hot loop: V8 keeps them in registers.
+    const bernoulli = countStep === 'bernoulli';
+    const truncationAt = lines.truncation ?? -1;
+    const scanA = scanAccept;
+    const scanR = scanReject;
+    let m = mass;
+    let acceptAt = acceptance;
+    let rejectAt = rejection;
+    m[startTotal] = 1;
     let low = startTotal;
     let high = startTotal;
     let accepted = 0;
@@ -142,42 +191,24 @@ export function createExactEvaluator(
     let n = startN;
     while (n < maxSteps) {
       n += 1;
-      if (n >= acceptance.length) ensureSteps(n);
-      const acceptBelow = acceptance[n];
-      const rejectFrom = rejection[n];
+      if (n >= acceptAt.length) {
+        ensureSteps(n);
+        m = mass;
+        acceptAt = acceptance;
+        rejectAt = rejection;
+      }
+      const acceptBelow = acceptAt[n];
+      const rejectFrom = rejectAt[n];
       let stoppedHere = 0;
-      if (countStep === 'bernoulli') {
-        const m = mass;
-        m[high + 1] = m[high] * p;
-        for (let d = high; d > low; d--) m[d] = m[d] * q + m[d - 1] * p;
-        m[low] *= q;
+      if (bernoulli) {
+        bernoulliStep(m, low, high, p, q);
         high += 1;
       } else {
-        // Poisson: new band low..rejectFrom-1; mass reaching >= rejectFrom is rejected by tail sums.
-        const m = mass;
-        const next = scratch;
-        let tailMass = 0;
-        for (let d = low; d <= high; d++) {
-          const gap = rejectFrom - d;
-          tailMass += m[d] * (gap <= 0 ? 1 : stepTail[gap < stepTail.length ? gap : stepTail.length - 1]);
-        }
-        const newHigh = rejectFrom - 1;
-        for (let target = low; target <= newHigh; target++) {
-          let sum = 0;
-          const top = target < high ? target : high;
-          for (let d = low; d <= top; d++) {
-            const jump = target - d;
-            if (jump < stepPmf.length) sum += m[d] * stepPmf[jump];
-          }
-          next[target] = sum;
-        }
-        for (let d = low; d <= high; d++) m[d] = 0;
-        for (let target = low; target <= newHigh; target++) m[target] = next[target];
-        high = newHigh;
+        const tailMass = poissonStep(m, scratch, stepPmf, stepTail, low, high, rejectFrom);
+        high = rejectFrom - 1;
         rejected += tailMass;
         stoppedHere += tailMass;
       }
-      const m = mass;
       while (low <= high && low <= acceptBelow) {
         accepted += m[low];
         stoppedHere += m[low];
@@ -190,7 +221,7 @@ export function createExactEvaluator(
         m[high] = 0;
         high -= 1;
       }
-      if (lines.truncation !== null && n >= lines.truncation) {
+      if (n === truncationAt) {
         for (let d = low; d <= high; d++) {
           if (d <= truncationAcceptance) accepted += m[d];
           else rejected += m[d];
@@ -199,7 +230,7 @@ export function createExactEvaluator(
         }
         high = low - 1;
       }
-      if (scanAccept !== null && scanReject !== null && n < scanAccept.length) {
+      if (scanA !== null && scanR !== null && n < scanA.length) {
         const neutral = neutralCount(lines, n);
         let below = 0;
         let above = 0;
@@ -207,13 +238,13 @@ export function createExactEvaluator(
           if (d <= neutral) below += m[d];
           else above += m[d];
         }
-        scanAccept[n] = accepted + below;
-        scanReject[n] = rejected + above;
+        scanA[n] = accepted + below;
+        scanR[n] = rejected + above;
       }
       weightedStops += n * stoppedHere;
       if (stops !== null) stops[n] = stoppedHere;
       if (low > high || 1 - accepted - rejected < tolerance) break;
-      if (scanAccept !== null && n + 1 >= scanAccept.length) break;
+      if (scanA !== null && n + 1 >= scanA.length) break;
     }
     let undecided = 0;
     for (let d = low; d <= high; d++) {
