@@ -7,10 +7,16 @@
 import type { z } from 'zod';
 import { planChannels, type PlanChannelOutputs } from './channels/planChannels.js';
 import { inspectionChannels, type InspectionChannelOutputs } from './channels/inspectionChannels.js';
+import { recordChannels, type RecordChannelOutputs } from './channels/recordChannels.js';
+import { sourceChannels, type SourceChannelOutputs } from './channels/sourceChannels.js';
+import { settingsChannels, type SettingsChannelOutputs } from './channels/settingsChannels.js';
 
 export const channels = {
   ...planChannels,
   ...inspectionChannels,
+  ...recordChannels,
+  ...sourceChannels,
+  ...settingsChannels,
 } as const;
 
 export type ChannelName = keyof typeof channels;
@@ -21,7 +27,7 @@ export type ChannelInput<C extends ChannelName> = z.input<(typeof channels)[C]['
 /** What the handler receives once the schema has accepted the payload. */
 export type ChannelParsedInput<C extends ChannelName> = z.output<(typeof channels)[C]['input']>;
 
-export interface ChannelOutputs extends PlanChannelOutputs, InspectionChannelOutputs {}
+export interface ChannelOutputs extends PlanChannelOutputs, InspectionChannelOutputs, RecordChannelOutputs, SourceChannelOutputs, SettingsChannelOutputs {}
 
 /** What a channel answers with when it succeeds. */
 export type ChannelOutput<C extends ChannelName> = ChannelOutputs[C];

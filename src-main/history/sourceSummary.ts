@@ -12,6 +12,9 @@ export interface HistoryRun {
   readonly startedAt: string;
   readonly lot: string;
   readonly planName: string;
+  /** From the plan version, when it named them. */
+  readonly part: string | null;
+  readonly characteristic: string | null;
   readonly model: PlanSpec['model'];
   /** Closed with a decision, or still open (never decided, or reopened by an override). */
   readonly status: 'open' | 'closed';

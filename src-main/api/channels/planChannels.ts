@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { designPlan, KlDivergences, PlanSpec, WaldBoundaries } from '../../engine/index.js';
 import type { PlanVersion } from '../../store/plans.js';
-import type { SourceKind } from '../../store/sources.js';
+import type { SourceKind, SourcePart } from '../../store/sources.js';
 
 /** A finite number; ranges (0 < p0 < p1 < 1, alpha + beta < 1, ...) are the engine factory's job. */
 const finite = z.number().finite();
@@ -57,6 +57,9 @@ export const planChannels = {
           z.object({ name: z.string().trim().min(1, 'A source needs a name.').max(120), kind: z.enum(['supplier', 'line', 'machine']) }),
         ])
         .nullable(),
+      /** The source's part this plan checks, and its characteristic (a run's record prints both). */
+      part: z.string().trim().max(120).nullable().optional(),
+      characteristic: z.string().trim().max(120).nullable().optional(),
       spec: planSpecSchema,
     }),
   },
@@ -83,6 +86,8 @@ export interface SourceChoice {
   id: string;
   name: string;
   kind: SourceKind;
+  /** The source's parts with their characteristics, for the part and characteristic pickers. */
+  parts: SourcePart[];
 }
 
 /** A saved plan version with the name of its source, for lists. */

@@ -1,6 +1,9 @@
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
+import { createRecordHandlers } from './recordHandlers.js';
+import { createSourceHandlers } from './sourceHandlers.js';
+import { createSettingsHandlers } from './settingsHandlers.js';
 
 /** Where the handlers keep and find data; one per app instance. */
 export interface HandlerContext {
@@ -12,5 +15,8 @@ export function createHandlers(context: HandlerContext): ChannelHandlers {
   return {
     ...createPlanHandlers(context),
     ...createInspectionHandlers(context),
+    ...createRecordHandlers(context),
+    ...createSourceHandlers(context),
+    ...createSettingsHandlers(context),
   };
 }

@@ -63,9 +63,9 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
     },
 
     'plan.sources': async () =>
-      (await sources.list()).map((source) => ({ id: source.id, name: source.name, kind: source.kind })),
+      (await sources.list()).map((source) => ({ id: source.id, name: source.name, kind: source.kind, parts: source.parts })),
 
-    'plan.save': async ({ id, name, source, spec }) => {
+    'plan.save': async ({ id, name, source, part, characteristic, spec }) => {
       waldBoundaries(spec); // refuses an invalid spec with the engine's own message before anything is written
       if (id !== undefined) await existingPlan(id);
       let sourceId: string | null = null;
@@ -77,7 +77,10 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
         const found = await sources.findByName(source.name);
         sourceId = (found ?? (await sources.create({ name: source.name, kind: source.kind }))).id;
       }
-      return withSourceName(await plans.save({ id, name, sourceId, spec }));
+      if ((part || characteristic) && sourceId === null) {
+        throw new ChannelFailure('invalid-payload', 'A part or characteristic belongs to a source: choose the source first.', 'part');
+      }
+      return withSourceName(await plans.save({ id, name, sourceId, part, characteristic, spec }));
     },
 
     'plan.list': async () => {

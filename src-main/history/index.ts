@@ -1,0 +1,3 @@
+/** The history of sources: their runs summed up. */
+export * from './sourceSummary.js';
+export { historyRunReader } from './historyRuns.js';
