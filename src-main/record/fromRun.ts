@@ -220,15 +220,17 @@ function closeOffset(read: RunJournalRead): string {
   return read.entries.findLast((entry) => entry.kind === 'close')?.offset ?? '+00:00';
 }
 
+/** The settings and software identity a record of this data folder is made with. */
+export async function recordContextFor(dataDirectory: string, generatedAt = new Date()): Promise<RecordContext> {
+  const [settings, software] = await Promise.all([new SettingsRepository(dataDirectory).get(), softwareIdentity()]);
+  return { settings, software, generatedAt };
+}
+
 /**
  * Reads a run's journal (refusing one that does not verify), the settings and the software
  * identity, and builds its record input.
  */
 export async function decisionRecordForRun(dataDirectory: string, runId: string, generatedAt = new Date()): Promise<DecisionRecordInput> {
-  const [read, settings, software] = await Promise.all([
-    readRunJournal(dataDirectory, runId),
-    new SettingsRepository(dataDirectory).get(),
-    softwareIdentity(),
-  ]);
-  return decisionRecordFromRun(requireVerified(read), { settings, software, generatedAt });
+  const [read, context] = await Promise.all([readRunJournal(dataDirectory, runId), recordContextFor(dataDirectory, generatedAt)]);
+  return decisionRecordFromRun(requireVerified(read), context);
 }

@@ -1,0 +1,60 @@
+import { z } from 'zod';
+import type { PlanSpec } from '../../engine/index.js';
+import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
+import type { HistoryRow, RunHistory } from '../../record/runHistory.js';
+import type { EvidenceFrame, InspectionEntry } from './inspectionChannels.js';
+
+/** Run ids become file names: the same characters the store allows. */
+const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
+const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.');
+
+/** Channels of the Records place: the run history, one run read-only, its record and its entries. */
+export const recordChannels = {
+  /** Every run, newest first, filtered by source, start date (from/to, inclusive) and decision. */
+  'record.history': {
+    input: z
+      .object({
+        sourceId: z.string().min(1).max(80).optional(),
+        from: day.optional(),
+        to: day.optional(),
+        decision: z.enum(['accept', 'reject', 'undecided']).optional(),
+      })
+      .refine((filter) => filter.from === undefined || filter.to === undefined || filter.from <= filter.to, {
+        message: 'The period ends before it starts.',
+        path: ['to'],
+      }),
+  },
+  /** One run, read-only (no lock is taken: an inspector may be writing it), with its chart and estimate. */
+  'record.open': { input: z.object({ runId }) },
+  /** The decision record PDF (interim while undecided), as base64 for the renderer to download. */
+  'record.pdf': { input: z.object({ runId }) },
+  /** The run's entries as CSV (RFC 4180, UTF-8, header row). */
+  'record.csv': { input: z.object({ runId }) },
+} as const;
+
+/** A run as the Records place shows it: what the record says, and the evidence path for the chart. */
+export interface RecordRunView {
+  readonly row: HistoryRow;
+  readonly recordId: string;
+  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: PlanSpec };
+  readonly lotSize: number | null;
+  readonly inspectors: string[];
+  readonly entries: InspectionEntry[];
+  readonly frame: EvidenceFrame;
+  readonly decision: RecordDecision;
+  readonly estimate: QualityEstimate | null;
+  readonly interim: boolean;
+  readonly fingerprint: string;
+}
+
+export interface RecordFile {
+  readonly fileName: string;
+  readonly interim: boolean;
+}
+
+export interface RecordChannelOutputs {
+  'record.history': RunHistory;
+  'record.open': RecordRunView;
+  'record.pdf': RecordFile & { readonly recordId: string; readonly base64: string };
+  'record.csv': RecordFile & { readonly text: string };
+}
