@@ -57,14 +57,14 @@ describe('the decision record of a decided run made through the run service', ()
     }
   });
 
-  it('prints what was tested: source, lot and size, inspectors, start and end with their offset', () => {
+  it('prints what was tested: source, part and characteristic from the plan version, lot and size, inspectors, start and end with their offset', () => {
     // The stepping clock starts at 07:30:00 UTC and moves 20 s per reading; the offset is this machine's.
     const offset = input.subject.startedAt.slice(19);
     for (const expected of [
-      'Lot from Kestrel Fasteners (invented), KF-25-0311',
+      'M6 flange nut, zinc flake from Kestrel Fasteners (invented), lot KF-25-0311',
       'Source Kestrel Fasteners (invented)',
-      'Part not recorded with the run',
-      'Characteristic not recorded with the run',
+      'Part M6 flange nut, zinc flake',
+      'Characteristic Internal thread 6H, GO/NO-GO gauge',
       'Lot / batch KF-25-0311',
       'Lot size 20 000 items',
       'Inspectors A. Brennan, T. Okafor',
@@ -222,6 +222,9 @@ describe('a run with no items yet', () => {
       const text = flatten((await pdfText(await renderDecisionRecord(input))).join('\n'));
       expect(text).toContain('Quality estimate none yet: no items inspected');
       expect(text).toContain('Inspector not named');
+      // A plan saved without part and characteristic: the record says so rather than inventing them.
+      expect(text).toContain('Lot from Kestrel Fasteners (invented), KF-25-0400');
+      expect(text).toContain('Part not recorded with the run');
     } finally {
       await space.cleanup();
     }

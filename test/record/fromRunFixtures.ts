@@ -52,9 +52,15 @@ export async function recordWorkspace(clock = steppingClock('2025-03-14T07:30:00
   };
 }
 
-export async function sourceWithPlan(space: RecordWorkspace, sourceName: string, planName: string, spec: PlanSpec): Promise<{ source: Source; plan: PlanVersion }> {
+export async function sourceWithPlan(
+  space: RecordWorkspace,
+  sourceName: string,
+  planName: string,
+  spec: PlanSpec,
+  checks: { part?: string; characteristic?: string } = {},
+): Promise<{ source: Source; plan: PlanVersion }> {
   const source = (await space.sources.findOrCreate(sourceName)).source;
-  const plan = await space.plans.save({ name: planName, sourceId: source.id, spec });
+  const plan = await space.plans.save({ name: planName, sourceId: source.id, spec, ...checks });
   return { source, plan };
 }
 
@@ -80,7 +86,10 @@ export function* passes(prefix: string, count: number, actor: string, from = 1):
  * voided by a second inspector (the item is then gauged again), then passes until the plan accepts (1 nonconforming: at 57 items).
  */
 export async function decidedKestrelRun(space: RecordWorkspace): Promise<{ runId: string; planId: string }> {
-  const { source, plan } = await sourceWithPlan(space, 'Kestrel Fasteners (invented)', 'M6 flange nut, thread gauge', incomingSpec);
+  const { source, plan } = await sourceWithPlan(space, 'Kestrel Fasteners (invented)', 'M6 flange nut, thread gauge', incomingSpec, {
+    part: 'M6 flange nut, zinc flake',
+    characteristic: 'Internal thread 6H, GO/NO-GO gauge',
+  });
   const run = await space.service.startRun({ planId: plan.id, sourceId: source.id, lot: 'KF-25-0311', lotSize: 20000, inspector: 'A. Brennan' });
   const runId = run.run.id;
   for (const result of passes('KF', 10, 'A. Brennan')) await space.service.recordResult(runId, result);
