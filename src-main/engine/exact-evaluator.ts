@@ -42,6 +42,12 @@ export interface ExactEvaluator {
   evaluateMany(thetas: ArrayLike<number>, accept: Float64Array, asn: Float64Array, undecided?: Float64Array): void;
 }
 
+function liveMass(mass: Float64Array, low: number, high: number): number {
+  let sum = 0;
+  for (let d = low; d <= high; d++) sum += mass[d];
+  return sum;
+}
+
 /** One Bernoulli step of the recursion, in place: mass[low..high] -> mass[low..high+1]. */
 function bernoulliStep(mass: Float64Array, low: number, high: number, p: number, q: number): void {
   mass[high + 1] = mass[high] * p;
@@ -243,14 +249,13 @@ export function createExactEvaluator(
       }
       weightedStops += n * stoppedHere;
       if (stops !== null) stops[n] = stoppedHere;
-      if (low > high || 1 - accepted - rejected < tolerance) break;
+      if (low > high) break;
+      // The cheap test can be off by rounding; confirm on the band itself so the reported remainder is below the tolerance.
+      if (1 - accepted - rejected < 2 * tolerance && liveMass(m, low, high) < tolerance) break;
       if (scanA !== null && n + 1 >= scanA.length) break;
     }
-    let undecided = 0;
-    for (let d = low; d <= high; d++) {
-      undecided += mass[d];
-      mass[d] = 0; // leave the buffer clean for the next run
-    }
+    const undecided = liveMass(mass, low, high);
+    mass.fill(0, low, high + 1); // leave the buffer clean for the next run
     out.accept = accepted;
     out.reject = rejected;
     out.undecided = undecided;
