@@ -8,9 +8,11 @@ export interface BenchCase<State = unknown> {
   /** What is measured, in one line. */
   description: string;
   /** Untimed preparation; its result is passed to every run. */
-  setup?: () => State;
-  /** The timed work; return something derived from the result so it cannot be optimised away. */
+  setup?: () => State | Promise<State>;
+  /** The timed work (awaited when it returns a promise); return something derived from the result so it cannot be optimised away. */
   run: (state: State) => unknown;
+  /** Untimed clean-up after the last run. */
+  teardown?: (state: State) => unknown;
   /** Timed repetitions (default 21) after `warmup` untimed ones (default 5). */
   repeat?: number;
   warmup?: number;

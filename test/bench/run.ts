@@ -1,6 +1,7 @@
 /**
  * `npm run bench [-- name ...]`: runs every case exported from test/bench/cases/*.ts in this process
- * and prints one JSON object per line: {"case", "medianMs", "minMs", "maxMs", "runs", "description"}.
+ * and prints one JSON object per line: {"case", "medianMs", "p99Ms", "minMs", "maxMs", "runs", "description"}.
+ * A case whose run returns a promise is timed until the promise settles (e.g. a fsync'd append).
  */
 import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
@@ -35,19 +36,31 @@ const round = (ms: number): number => Math.round(ms * 1000) / 1000;
 
 let sink: unknown;
 
-function measure(benchCase: BenchCase): Record<string, unknown> {
-  const state = benchCase.setup?.();
-  for (let i = 0; i < (benchCase.warmup ?? 5); i++) sink = benchCase.run(state);
+/** Nearest-rank percentile of sorted times. */
+function percentile(sorted: readonly number[], fraction: number): number {
+  return sorted[Math.min(sorted.length - 1, Math.ceil(fraction * sorted.length) - 1)];
+}
+
+async function once(benchCase: BenchCase, state: unknown): Promise<unknown> {
+  const result = benchCase.run(state);
+  return result instanceof Promise ? await result : result;
+}
+
+async function measure(benchCase: BenchCase): Promise<Record<string, unknown>> {
+  const state = await benchCase.setup?.();
+  for (let i = 0; i < (benchCase.warmup ?? 5); i++) sink = await once(benchCase, state);
   const times: number[] = [];
   for (let i = 0; i < (benchCase.repeat ?? 21); i++) {
     const start = performance.now();
-    sink = benchCase.run(state);
+    sink = await once(benchCase, state);
     times.push(performance.now() - start);
   }
+  await benchCase.teardown?.(state);
   times.sort((a, b) => a - b);
   return {
     case: benchCase.name,
     medianMs: round(median(times)),
+    p99Ms: round(percentile(times, 0.99)),
     minMs: round(times[0]),
     maxMs: round(times[times.length - 1]),
     runs: times.length,
@@ -57,5 +70,5 @@ function measure(benchCase: BenchCase): Record<string, unknown> {
 
 const wanted = process.argv.slice(2);
 const cases = (await loadCases()).filter((benchCase) => wanted.length === 0 || wanted.includes(benchCase.name));
-for (const benchCase of cases) process.stdout.write(`${JSON.stringify(measure(benchCase))}\n`);
+for (const benchCase of cases) process.stdout.write(`${JSON.stringify(await measure(benchCase))}\n`);
 if (sink === Symbol.for('never')) process.stdout.write('\n');

@@ -1,16 +1,12 @@
 /**
- * Bench cases for the run journal. `npm run bench` (a synchronous runner) takes `cases`:
- * - journal-append: one entry line (serialise, hash, write every byte, fsync), as the writer does;
+ * Bench cases for the run journal:
+ * - journal-append: the real JournalWriter, one append from call to acknowledgement (written and
+ *   fsync'd), median and p99;
  * - journal-reload-10k: read a 10,000-result journal, verify its chain, replay it, recompute the state.
- * The runner times synchronous work and prints no percentiles, so the real asynchronous
- * JournalWriter's append latency (median and p99) is measured when this file is run alone:
- * `npx tsx test/bench/cases/journal.ts`.
  */
-import { fsyncSync, mkdirSync, mkdtempSync, openSync, readFileSync, rmSync, writeFileSync, writeSync } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import type { PlanSpec } from '../../../src-main/engine/index.js';
 import { RunReplay, runState } from '../../../src-main/inspection/index.js';
 import {
@@ -25,37 +21,7 @@ import {
 } from '../../../src-main/store/index.js';
 import { benchCase } from '../bench-case.js';
 
-const APPENDS = 500;
 const RELOAD_RESULTS = 10_000;
-
-function percentile(sorted: readonly number[], fraction: number): number {
-  return sorted[Math.min(sorted.length - 1, Math.ceil(fraction * sorted.length) - 1)];
-}
-
-async function inTempFolder<Value>(work: (folder: string) => Promise<Value>): Promise<Value> {
-  const folder = await mkdtemp(path.join(os.tmpdir(), 'tallyline-bench-'));
-  try {
-    return await work(folder);
-  } finally {
-    await rm(folder, { recursive: true, force: true });
-  }
-}
-
-/** The real JournalWriter, one append at a time: latency from call to acknowledgement. */
-export function writerAppendLatency(): Promise<Record<string, number>> {
-  return inTempFolder(async (folder) => {
-    const { writer } = await JournalWriter.create(path.join(folder, 'bench.journal'), 'bench', {});
-    const times: number[] = [];
-    for (let index = 0; index < APPENDS; index += 1) {
-      const started = process.hrtime.bigint();
-      await writer.append('result', 'bench', { itemId: `SN-${index}`, result: 'pass', category: null, note: null });
-      times.push(Number(process.hrtime.bigint() - started) / 1e6);
-    }
-    await writer.close();
-    times.sort((a, b) => a - b);
-    return { appends: APPENDS, medianMs: percentile(times, 0.5), p99Ms: percentile(times, 0.99), maxMs: times.at(-1) ?? 0 };
-  });
-}
 
 /** Wald plan whose acceptance and rejection lines a result pattern near the midline never leaves. */
 const reloadSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05, truncation: null, fit: 'wald' };
@@ -94,31 +60,20 @@ function benchFolder(): string {
 }
 
 export const cases = [
-  benchCase({
+  benchCase<{ writer: JournalWriter; seq: number }>({
     name: 'journal-append',
-    description: 'one run journal entry: serialise, SHA-256 link, write every byte, fsync (the writer\'s work per append)',
-    setup: () => {
-      const descriptor = openSync(path.join(benchFolder(), 'append.journal'), 'a');
-      return { descriptor, seq: 0, previous: GENESIS_HASH };
+    description: 'one run journal entry through the real JournalWriter: serialise, SHA-256 link, write every byte, fsync, acknowledge',
+    setup: async () => {
+      const { writer } = await JournalWriter.create(path.join(benchFolder(), 'append.journal'), 'bench', {});
+      return { writer, seq: 0 };
     },
-    run: (state) => {
-      const line = entryLine({
-        seq: state.seq,
-        time: new Date().toISOString(),
-        offset: '+00:00',
-        actor: 'bench',
-        kind: 'result',
-        payload: { itemId: `SN-${state.seq}`, result: 'pass', category: null, note: null },
-        previous: state.previous,
-      });
-      const bytes = Buffer.from(line + '\n');
-      for (let written = 0; written < bytes.length; ) written += writeSync(state.descriptor, bytes, written);
-      fsyncSync(state.descriptor);
-      state.previous = lineHash(line);
+    run: async (state) => {
       state.seq += 1;
+      await state.writer.append('result', 'bench', { itemId: `SN-${state.seq}`, result: 'pass', category: null, note: null });
       return state.seq;
     },
-    repeat: 201,
+    teardown: (state) => state.writer.close(),
+    repeat: 501,
   }),
   benchCase({
     name: 'journal-reload-10k',
@@ -144,6 +99,3 @@ export const cases = [
   }),
 ];
 
-if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  process.stdout.write(`${JSON.stringify({ case: 'journal-writer-append', ...(await writerAppendLatency()) })}\n`);
-}
