@@ -3,6 +3,7 @@ export const places = [
   { id: 'plan', label: 'Plan', hint: 'Design a test before the run' },
   { id: 'inspect', label: 'Inspect', hint: 'Enter results of a run on the floor' },
   { id: 'records', label: 'Records', hint: 'Every run: history, read-only view, decision record and CSV' },
+  { id: 'sources', label: 'Sources', hint: 'Suppliers, lines and machines: their parts, runs and settings' },
 ] as const;
 
 export type PlaceId = (typeof places)[number]['id'];

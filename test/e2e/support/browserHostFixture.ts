@@ -4,6 +4,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { seedDemo } from '../../../src-main/demo/index.js';
 
 const appRoot = fileURLToPath(new URL('../../..', import.meta.url));
 
@@ -42,10 +43,12 @@ export async function startHost(dataDirectory: string): Promise<{ host: RunningH
   return { host: { url, origin: parsed.origin, token, dataDirectory }, process: child };
 }
 
-/** A Playwright test with a fresh browser host per test. */
-export const test = base.extend<{ host: RunningHost }>({
-  host: async ({}, use) => {
+/** A Playwright test with a fresh browser host per test; `test.use({ hostData: 'demo' })` fills it with the invented demo first. */
+export const test = base.extend<{ host: RunningHost; hostData: 'empty' | 'demo' }>({
+  hostData: ['empty', { option: true }],
+  host: async ({ hostData }, use) => {
     const dataDirectory = await mkdtemp(join(tmpdir(), 'tallyline-e2e-'));
+    if (hostData === 'demo') await seedDemo(dataDirectory);
     const { host, process: child } = await startHost(dataDirectory);
     await use(host);
     child.kill('SIGTERM');

@@ -26,9 +26,17 @@ export class PlanLibrary {
   }
 
   /** Saves the spec: as the next version of the current plan, or (asNew) as a new plan. */
-  async save(input: { name: string; source: SourceTarget; spec: PlanSpec; asNew: boolean }): Promise<SavedPlan | null> {
+  async save(input: {
+    name: string;
+    source: SourceTarget;
+    part?: string | null;
+    characteristic?: string | null;
+    spec: PlanSpec;
+    asNew: boolean;
+  }): Promise<SavedPlan | null> {
     const id = input.asNew ? undefined : this.current?.id;
-    const result = await request('plan.save', { id, name: input.name, source: input.source, spec: input.spec });
+    const { name, source, part, characteristic, spec } = input;
+    const result = await request('plan.save', { id, name, source, part, characteristic, spec });
     if (!result.ok) {
       this.problem = result.message;
       return null;
