@@ -39,3 +39,58 @@ export interface CountSpec extends CommonSpec {
 export type PlanSpec = PassFailSpec | CountSpec;
 
 export type ModelName = PlanSpec['model'];
+
+/**
+ * Normal measurements with known sigma: mean mu0 (acceptable) against mu1 (rejectable), mu1 above
+ * or below mu0. Evidence: n measurements and their sum. Truncation counts measurements.
+ */
+export interface MeasurementSpec {
+  model: 'measurement';
+  mu0: number;
+  mu1: number;
+  /** Known standard deviation of one measurement, > 0, in the measurement's unit. */
+  sigma: number;
+  alpha: number;
+  beta: number;
+  truncation?: number | null;
+  /** Pull both limits inward by Siegmund's rho |mu1 - mu0| / sigma so the true risks come near nominal. */
+  overshootCorrection?: boolean;
+  /** The measurement's unit, for display only (e.g. "mm"). */
+  unit?: string;
+}
+
+/**
+ * Exponential times to failure (reliability demonstration): MTBF theta0 (acceptable) against
+ * theta1 < theta0 (rejectable). Evidence: accumulated test time T and failures r.
+ */
+export interface LifetimeSpec {
+  model: 'lifetime';
+  theta0: number;
+  theta1: number;
+  alpha: number;
+  beta: number;
+  /** Accumulated test time at which an undecided test stops: accept iff LLR <= 0 there. */
+  maxTime?: number | null;
+  /** Failure count at which an undecided test stops and rejects. */
+  maxFailures?: number | null;
+  /** The unit of time, for display only (e.g. "unit-hours"). */
+  unit?: string;
+}
+
+/** Items graded into k classes (e.g. conforming / minor / major), probability vectors p0 and p1. */
+export interface GradedSpec {
+  model: 'graded';
+  /** Class names, 2 to 10, distinct; the first is the reference class (usually "conforming"). */
+  classes: string[];
+  p0: number[];
+  p1: number[];
+  alpha: number;
+  beta: number;
+  truncation?: number | null;
+}
+
+/** The models whose evidence is not one integer count per item: each has its own design path. */
+export type ExtendedPlanSpec = MeasurementSpec | LifetimeSpec | GradedSpec;
+
+/** Every plan the engine designs: the linear-count models and the extended ones. */
+export type AnyPlanSpec = PlanSpec | ExtendedPlanSpec;

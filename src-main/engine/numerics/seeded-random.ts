@@ -1,0 +1,53 @@
+/** A small seeded random source, so simulated operating characteristics are reproducible. */
+
+export interface SeededRandom {
+  /** Uniform on (0, 1), never 0. */
+  uniform(): number;
+  /** Standard normal. */
+  normal(): number;
+  /** Exponential with mean 1. */
+  exponential(): number;
+}
+
+/**
+ * A seeded generator: mulberry32 for 32-bit words, two words per uniform (53 bits), normal deviates
+ * by the polar method, exponential by inversion.
+ *
+ * Method: mulberry32 state step t += 0x6D2B79F5 with two multiply-xorshift rounds; polar method
+ * accepts (u, v) in the unit disc and returns u sqrt(-2 ln s / s).
+ * References: Marsaglia, G. and Bray, T. A. (1964), "A convenient method for generating normal
+ * variables", SIAM Review 6(3); Devroye, L. (1986), Non-Uniform Random Variate Generation, §II.2
+ * (inversion).
+ */
+export function seededRandom(seed: number): SeededRandom {
+  let state = seed >>> 0;
+  let spareNormal = Number.NaN;
+  const word = (): number => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return (t ^ (t >>> 14)) >>> 0;
+  };
+  const uniform = (): number => ((word() >>> 5) * 67108864 + (word() >>> 6) + 0.5) / 9007199254740992;
+  return {
+    uniform,
+    normal() {
+      if (!Number.isNaN(spareNormal)) {
+        const value = spareNormal;
+        spareNormal = Number.NaN;
+        return value;
+      }
+      for (;;) {
+        const u = 2 * uniform() - 1;
+        const v = 2 * uniform() - 1;
+        const s = u * u + v * v;
+        if (s >= 1 || s === 0) continue;
+        const factor = Math.sqrt((-2 * Math.log(s)) / s);
+        spareNormal = v * factor;
+        return u * factor;
+      }
+    },
+    exponential: () => -Math.log(uniform()),
+  };
+}
