@@ -14,7 +14,7 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readFile, readdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { z } from 'zod';
-import { planVersionSchema, settingsSchema, sourceSchema, syncFolder, verifyJournal } from '../store/index.js';
+import { planVersionSchema, processIsAlive, settingsSchema, sourceSchema, syncFolder, verifyJournal } from '../store/index.js';
 import { ArchiveRefusedError, RestoreBlockedError } from './archiveFormat.js';
 import { unpackArchive, type ArchivedFile } from './readArchive.js';
 
@@ -152,22 +152,13 @@ async function refuseWhileRunsAreOpen(dataDirectory: string): Promise<void> {
   }
   for (const name of names.filter((entry) => entry.endsWith('.lock'))) {
     const pid = Number.parseInt(await readFile(path.join(dataDirectory, 'runs', name), 'utf8').catch(() => ''), 10);
-    if (Number.isInteger(pid) && pid > 0 && isAlive(pid)) {
+    if (Number.isInteger(pid) && pid > 0 && processIsAlive(pid)) {
       const who = pid === process.pid ? 'this Tallyline' : `another Tallyline (process ${pid})`;
       throw new RestoreBlockedError(
         `run ${name.slice(0, -'.lock'.length)} is open for entry in ${who}; close Tallyline and restore from the command line ` +
           `(tallyline restore --from FILE --data-dir DIR)`,
       );
     }
-  }
-}
-
-function isAlive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (error) {
-    return (error as NodeJS.ErrnoException).code === 'EPERM';
   }
 }
 

@@ -4,6 +4,7 @@
  * seed gives the same runs.
  */
 import { readdir } from 'node:fs/promises';
+import path from 'node:path';
 import { createRunService } from '../inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, folderNames } from '../store/index.js';
 import { DEMO_INSPECTORS, DEMO_ORGANISATION, DEMO_SITE, demoLots, demoPlans, demoSources } from './demoScenario.js';
@@ -40,7 +41,7 @@ export async function dataFolderContents(dataDirectory: string): Promise<string 
   if (top.includes('settings.json')) return 'settings.json';
   for (const [folder, what] of [['sources', 'sources'], ['plans', 'plans'], ['runs', 'runs']] as const) {
     if (!top.includes(folder)) continue;
-    const count = (await readdir(`${dataDirectory}/${folder}`)).filter((name) => !name.startsWith('.')).length;
+    const count = (await readdir(path.join(dataDirectory, folder))).filter((name) => !name.startsWith('.')).length;
     if (count > 0) return `${count} ${count === 1 ? what.slice(0, -1) : what}`;
   }
   return null;

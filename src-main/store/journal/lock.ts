@@ -32,7 +32,8 @@ export async function acquireJournalLock(journalPath: string): Promise<JournalLo
   throw new Error(`could not take the lock ${lockPath}`);
 }
 
-function isAlive(pid: number): boolean {
+/** Whether a process with this pid runs (EPERM: it does, under another user). */
+export function isAlive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;
