@@ -3,7 +3,7 @@
  * and the channel contract on IPC. Everything else is plain Node code shared with the browser host.
  */
 import { app, BrowserWindow, ipcMain, Menu, protocol, shell } from 'electron';
-import { homedir } from 'node:os';
+import { homedir, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createDispatcher } from '../api/dispatcher.js';
 import { createHandlers } from '../api/handlers/index.js';
@@ -12,6 +12,7 @@ import { resolveDataDirectory } from '../store/dataDirectory.js';
 import { appOrigin, appScheme, isAppUrl, serveAppRequest } from './appProtocol.js';
 import { registerIpcChannels } from './ipcAdapter.js';
 import { buildMenuTemplate } from './menu.js';
+import { registerOpenRecordPdf } from './openRecordPdf.js';
 
 protocol.registerSchemesAsPrivileged([{ scheme: appScheme, privileges: { standard: true, secure: true, supportFetchAPI: true } }]);
 
@@ -36,6 +37,7 @@ function start(): void {
   const dataDirectory = resolveDataDirectory({ argv: process.argv, env: process.env, platform: process.platform, home: homedir() });
   protocol.handle(appScheme, (request) => serveAppRequest(rendererRoot, request.url));
   registerIpcChannels(ipcMain, createDispatcher(createHandlers({ dataDirectory })), isAppUrl);
+  registerOpenRecordPdf(ipcMain, { folder: join(tmpdir(), 'Tallyline records'), openPath: (path) => shell.openPath(path), isTrustedUrl: isAppUrl });
   Menu.setApplicationMenu(Menu.buildFromTemplate(buildMenuTemplate(process.platform)));
   openWindow();
 }

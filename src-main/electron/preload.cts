@@ -1,6 +1,8 @@
 /**
  * Runs sandboxed before the renderer: exposes exactly the channel contract as
- * `window.tallyline`, one method per channel, never ipcRenderer itself.
+ * `window.tallyline`, one method per channel, never ipcRenderer itself; and, as
+ * `window.tallylineDesktop`, the one thing only the desktop shell can do: open a record PDF in
+ * the system viewer for printing.
  */
 import electron = require('electron');
 
@@ -13,3 +15,9 @@ for (const name of names) {
   methods[name] = (payload: unknown) => ipcRenderer.invoke(prefix + name, payload);
 }
 contextBridge.exposeInMainWorld('tallyline', Object.freeze(methods));
+contextBridge.exposeInMainWorld(
+  'tallylineDesktop',
+  Object.freeze({
+    openRecordPdf: (fileName: string, base64: string) => ipcRenderer.invoke('tallyline-desktop:open-record-pdf', { fileName, base64 }),
+  }),
+);

@@ -34,7 +34,7 @@ vi.mock('electron', () => {
     ipcMain: { handle: (channel: string) => recorded.invokeChannels.push(channel), on: () => undefined },
     Menu: { setApplicationMenu: () => undefined, buildFromTemplate: (template: unknown) => template },
     protocol: { registerSchemesAsPrivileged: () => undefined, handle: (scheme: string) => recorded.handledProtocols.push(scheme) },
-    shell: { openExternal: (url: string) => recorded.openedExternally.push(url) },
+    shell: { openExternal: (url: string) => recorded.openedExternally.push(url), openPath: async () => '' },
   };
   return { ...electron, default: electron };
 });
@@ -75,6 +75,11 @@ describe('the Electron shell', () => {
 
   it('serves every channel of the contract on IPC', async () => {
     const { channelNames } = await import('../../src-main/api/contract.js');
-    expect(recorded.invokeChannels.sort()).toEqual(channelNames.map((name) => `tallyline:${name}`).sort());
+    const contractChannels = recorded.invokeChannels.filter((channel) => channel.startsWith('tallyline:'));
+    expect(contractChannels.sort()).toEqual(channelNames.map((name) => `tallyline:${name}`).sort());
+  });
+
+  it('offers the desktop-only way to open a record PDF for printing', () => {
+    expect(recorded.invokeChannels).toContain('tallyline-desktop:open-record-pdf');
   });
 });

@@ -8,9 +8,15 @@ import type { ChannelResult } from '../../../src-main/api/result';
 
 type PreloadBridge = Record<string, (payload: unknown) => Promise<ChannelResult<unknown>>>;
 
+/** Only in the desktop window: what the shell can do beyond the channel contract. */
+interface DesktopBridge {
+  openRecordPdf(fileName: string, base64: string): Promise<ChannelResult<string>>;
+}
+
 declare global {
   interface Window {
     tallyline?: PreloadBridge;
+    tallylineDesktop?: DesktopBridge;
   }
 }
 

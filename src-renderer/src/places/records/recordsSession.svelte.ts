@@ -78,8 +78,18 @@ export class RecordsSession {
       this.fileStatus = { ok: false, message: result.message };
       return;
     }
+    const interim = result.value.interim ? ' (interim: the run is not decided)' : '';
+    const desktop = window.tallylineDesktop;
+    if (desktop) {
+      // In the desktop window the record opens in the system PDF viewer, which prints it.
+      const opened = await desktop.openRecordPdf(result.value.fileName, result.value.base64);
+      this.fileStatus = opened.ok
+        ? { ok: true, message: `Opened ${result.value.fileName}${interim} in your PDF viewer; print it from there.` }
+        : { ok: false, message: opened.message };
+      return;
+    }
     downloadBase64(result.value.fileName, result.value.base64, 'application/pdf');
-    this.fileStatus = { ok: true, message: `Downloaded ${result.value.fileName}${result.value.interim ? ' (interim: the run is not decided)' : ''}.` };
+    this.fileStatus = { ok: true, message: `Downloaded ${result.value.fileName}${interim}.` };
   }
 
   async downloadEntries(runId: string): Promise<void> {
