@@ -70,6 +70,11 @@ export interface RunServiceOptions {
   readonly clock?: () => Date;
   /** Who starts runs when the input names no inspector. */
   readonly defaultActor?: string;
+  /**
+   * How long a run's journal stays open (and locked) after its last use, in ms (default 30 s).
+   * Letting go when idle lets another writer, such as a station's `feed`, take the run over.
+   */
+  readonly idleReleaseMs?: number;
 }
 
 interface OpenRun {
@@ -87,6 +92,23 @@ export function createRunService(options: RunServiceOptions) {
   const sources = new SourceRepository(dataDirectory, clock);
   const open = new Map<string, OpenRun>();
   const queues = new Map<string, Promise<unknown>>();
+  const idleTimers = new Map<string, NodeJS.Timeout>();
+  const idleReleaseMs = options.idleReleaseMs ?? 30_000;
+
+  /** Closes a run's journal once it has not been used for idleReleaseMs; every use restarts the wait. */
+  function releaseWhenIdle(runId: string): void {
+    clearTimeout(idleTimers.get(runId));
+    const timer = setTimeout(() => {
+      idleTimers.delete(runId);
+      void exclusive(runId, async () => {
+        const handle = open.get(runId);
+        open.delete(runId);
+        await handle?.writer.close();
+      });
+    }, idleReleaseMs);
+    timer.unref();
+    idleTimers.set(runId, timer);
+  }
 
   /** Operations on one run run one after another, so a check and the append it allows never interleave. */
   function exclusive<Value>(runId: string, operation: () => Promise<Value>): Promise<Value> {
@@ -97,7 +119,10 @@ export function createRunService(options: RunServiceOptions) {
 
   async function writable(runId: string): Promise<OpenRun> {
     const cached = open.get(runId);
-    if (cached !== undefined) return cached;
+    if (cached !== undefined) {
+      releaseWhenIdle(runId);
+      return cached;
+    }
     try {
       const opened = await JournalWriter.open(layout.runJournal(dataDirectory, runId), clock);
       const handle: OpenRun = {
@@ -106,6 +131,7 @@ export function createRunService(options: RunServiceOptions) {
         recovered: opened.recovered?.record ?? null,
       };
       open.set(runId, handle);
+      releaseWhenIdle(runId);
       return handle;
     } catch (error) {
       if (error instanceof JournalTamperedError || error instanceof JournalBusyError) {
@@ -196,6 +222,7 @@ export function createRunService(options: RunServiceOptions) {
       );
       const handle: OpenRun = { writer: created.writer, replay: RunReplay.fromEntries(created.entries), recovered: null };
       open.set(runId, handle);
+      releaseWhenIdle(runId);
       return view(handle.replay, { writable: true, problems: [], recovered: null, fingerprint: handle.writer.fingerprint });
     },
 
@@ -297,6 +324,8 @@ export function createRunService(options: RunServiceOptions) {
 
     /** Release every journal handle and lock this service holds. */
     async close(): Promise<void> {
+      for (const timer of idleTimers.values()) clearTimeout(timer);
+      idleTimers.clear();
       const handles = [...open.values()];
       open.clear();
       await Promise.all(handles.map((handle) => handle.writer.close()));
