@@ -28,7 +28,13 @@ export const EXIT_FAILURE = 1;
 export const EXIT_USAGE = 2;
 
 /** Engine parameter names that a flag of a different name sets. */
-const PARAMETER_FLAGS: Record<string, string> = { truncation: 'truncate', curvePoints: 'points' };
+const PARAMETER_FLAGS: Record<string, string> = {
+  truncation: 'truncate',
+  curvePoints: 'points',
+  maxTime: 'max-time',
+  maxFailures: 'max-failures',
+  overshootCorrection: 'correct-overshoot',
+};
 
 /** The flag that set an engine parameter, e.g. "p0" -> "--p0", "truncation" -> "--truncate". */
 export function flagForParameter(parameter: string): string {

@@ -2,8 +2,9 @@
  * The flags that describe a plan, shared by `plan`, `replay` and later `run start`:
  * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
  */
-import type { PlanSpec } from '../engine/index.js';
-import { flag, rejectFlags, requireFlag } from './flags.js';
+import type { AnyPlanSpec, PlanSpec } from '../engine/index.js';
+import { UsageError, flag, rejectFlags, requireFlag } from './flags.js';
+import type { Flag } from './flags.js';
 
 export const planFlags = {
   model: flag.choice('passfail', 'count'),
@@ -57,4 +58,140 @@ export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
     lambda1: requireFlag<number>(values, 'lambda1', planFlags),
     ...common,
   };
+}
+
+// ---- Models with their own design path (issue 8): measurement, lifetime, graded. ----
+
+const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+function numberFlag(name: string, allowed: string, accept: (value: number) => boolean): Flag<number> {
+  return {
+    takesValue: true,
+    allowed,
+    parse(raw) {
+      const value = NUMBER_TEXT.test(raw.trim()) ? Number(raw) : Number.NaN;
+      if (!Number.isFinite(value) || !accept(value)) throw new UsageError(`--${name}`, allowed, `--${name} must be ${allowed} (got ${JSON.stringify(raw)})`);
+      return value;
+    },
+  };
+}
+
+/** A probability, or (graded) a comma-separated list of them; the model decides which it needs. */
+function probabilitiesFlag(name: string): Flag<number | number[]> {
+  const allowed = 'a number in (0, 1)';
+  return {
+    takesValue: true,
+    allowed,
+    parse(raw) {
+      const parts = raw.split(',').map((part) => part.trim());
+      const values = parts.map((part) => (NUMBER_TEXT.test(part) ? Number(part) : Number.NaN));
+      if (values.some((value) => !(value > 0 && value < 1))) {
+        const what = parts.length > 1 ? 'a comma-separated list of numbers, each in (0, 1)' : allowed;
+        throw new UsageError(`--${name}`, what, `--${name} must be ${what} (got ${JSON.stringify(raw)})`);
+      }
+      return parts.length === 1 ? values[0] : values;
+    },
+  };
+}
+
+const classNamesFlag: Flag<string[]> = {
+  takesValue: true,
+  allowed: 'a comma-separated list of 2 to 10 distinct class names',
+  parse(raw) {
+    const names = raw.split(',').map((name) => name.trim());
+    if (names.length < 2 || names.length > 10 || names.some((name) => name === '') || new Set(names).size !== names.length) {
+      throw new UsageError('--classes', classNamesFlag.allowed, `--classes must be ${classNamesFlag.allowed} (got ${JSON.stringify(raw)})`);
+    }
+    return names;
+  },
+};
+
+/** Plan flags for `plan` and `replay`: every model, including measurement, lifetime and graded. */
+export const modelPlanFlags = {
+  ...planFlags,
+  model: flag.choice('passfail', 'count', 'measurement', 'lifetime', 'graded'),
+  p0: probabilitiesFlag('p0'),
+  p1: probabilitiesFlag('p1'),
+  mu0: numberFlag('mu0', 'a finite number', () => true),
+  mu1: numberFlag('mu1', 'a finite number', () => true),
+  sigma: flag.positive(),
+  'correct-overshoot': flag.switch(),
+  theta0: flag.positive(),
+  theta1: flag.positive(),
+  'max-time': flag.positive(),
+  'max-failures': flag.integer(1),
+  classes: classNamesFlag,
+};
+
+export const modelPlanFlagsUsage = [
+  '  --model measurement        normal measurements, sigma known:',
+  '     --mu0 M --mu1 M --sigma S [--correct-overshoot]   (mu1 above or below mu0; the correction pulls both limits in by 0.5826 |mu1-mu0|/sigma)',
+  '  --model lifetime           exponential times to failure:',
+  '     --theta0 T --theta1 T [--max-time T] [--max-failures R]   (theta1 < theta0, MTBF in your time unit)',
+  '  --model graded             items graded into classes:',
+  '     --classes a,b,c --p0 P,P,P --p1 P,P,P   (each list sums to 1; the first class is the reference)',
+].join('\n');
+
+const OWN_FLAGS: Record<string, readonly string[]> = {
+  passfail: ['p0', 'p1'],
+  count: ['lambda0', 'lambda1'],
+  measurement: ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'truncate'],
+  lifetime: ['theta0', 'theta1', 'max-time', 'max-failures'],
+  graded: ['classes', 'p0', 'p1', 'truncate'],
+};
+
+/**
+ * The plan spec of any model from parsed `modelPlanFlags`; the engine then checks the relations.
+ *
+ * @throws UsageError for a missing flag or one that belongs to another model.
+ */
+export function anyPlanSpecFromFlags(values: Record<string, unknown>): AnyPlanSpec {
+  const model = requireFlag<AnyPlanSpec['model']>(values, 'model', modelPlanFlags);
+  if (model === 'passfail' || model === 'count') {
+    rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes'], `does not apply to --model ${model}`);
+    for (const name of ['p0', 'p1']) {
+      if (Array.isArray(values[name])) throw new UsageError(`--${name}`, 'a number in (0, 1)', `--${name} must be a number in (0, 1) for --model ${model} (got a list)`);
+    }
+    return planSpecFromFlags(values);
+  }
+  const own = new Set([...OWN_FLAGS[model], 'model', 'alpha', 'beta', 'points', 'json', 'results']);
+  const foreign = Object.keys(values).filter((name) => values[name] !== undefined && !own.has(name));
+  rejectFlags(values, foreign, `does not apply to --model ${model}`);
+  const alpha = requireFlag<number>(values, 'alpha', modelPlanFlags);
+  const beta = requireFlag<number>(values, 'beta', modelPlanFlags);
+  const need = <T>(name: keyof typeof modelPlanFlags): T => requireFlag<T>(values, name, modelPlanFlags);
+  if (model === 'measurement') {
+    return {
+      model,
+      mu0: need<number>('mu0'),
+      mu1: need<number>('mu1'),
+      sigma: need<number>('sigma'),
+      alpha,
+      beta,
+      truncation: (values.truncate as number | undefined) ?? null,
+      overshootCorrection: values['correct-overshoot'] === true,
+    };
+  }
+  if (model === 'lifetime') {
+    return {
+      model,
+      theta0: need<number>('theta0'),
+      theta1: need<number>('theta1'),
+      alpha,
+      beta,
+      maxTime: (values['max-time'] as number | undefined) ?? null,
+      maxFailures: (values['max-failures'] as number | undefined) ?? null,
+    };
+  }
+  const classes = need<string[]>('classes');
+  const vector = (name: 'p0' | 'p1'): number[] => {
+    const allowed = `${classes.length} probabilities, comma-separated, one per class of --classes, summing to 1`;
+    const value = values[name];
+    if (value === undefined) throw new UsageError(`--${name}`, allowed, `--${name} is required for --model graded: ${allowed}`);
+    if (!Array.isArray(value) || value.length !== classes.length) {
+      throw new UsageError(`--${name}`, allowed, `--${name} must be ${allowed} (got ${Array.isArray(value) ? value.length : 1})`);
+    }
+    return value as number[];
+  };
+  return { model, classes, p0: vector('p0'), p1: vector('p1'), alpha, beta, truncation: (values.truncate as number | undefined) ?? null };
 }

@@ -6,23 +6,31 @@ import type { LimitRow, PlanDesign, PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { planFlags, planFlagsUsage, planSpecFromFlags } from './plan-flags.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
+import { designExtendedPlan, readableExtendedPlan } from './plan-models.js';
 import { formatNumber, formatPercent, formatTable } from './table.js';
 
-const flags = { ...planFlags, points: flag.integer(2, 10001), json: flag.switch() };
+const flags = { ...modelPlanFlags, points: flag.integer(2, 10001), json: flag.switch() };
 
 export const command: Command = {
   summary: 'design a sequential plan: lines, Wald and exact OC/ASN, single plan, limits, curve',
   usage: [
     'Usage: tallyline plan --model passfail --p0 P --p1 P --alpha A --beta B [--truncate N] [--points K] [--fit exact] [--json]',
     '       tallyline plan --model count --lambda0 L --lambda1 L --alpha A --beta B [...]',
+    '       tallyline plan --model measurement|lifetime|graded ... (flags below)',
     planFlagsUsage,
+    modelPlanFlagsUsage,
     '  --points K                 qualities on the OC/ASN curve, 2 to 10001 (default 51)',
     '  --json                     print JSON instead of tables',
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const spec = planSpecFromFlags(values);
+    const spec = anyPlanSpecFromFlags(values);
+    if (spec.model === 'measurement' || spec.model === 'lifetime' || spec.model === 'graded') {
+      const text = values.json ? JSON.stringify(designExtendedPlan(spec, values.points ?? 51), null, 2) : readableExtendedPlan(spec);
+      io.stdout(`${text}\n`);
+      return EXIT_OK;
+    }
     const design = designPlan(spec, { curvePoints: values.points ?? 51 });
     io.stdout(values.json ? `${JSON.stringify(design, null, 2)}\n` : `${readablePlan(spec, design)}\n`);
     return EXIT_OK;

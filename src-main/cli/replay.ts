@@ -6,10 +6,11 @@ import type { PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { planFlags, planFlagsUsage, planSpecFromFlags } from './plan-flags.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
+import { replayExtended } from './replay-models.js';
 import { formatNumber, formatTable } from './table.js';
 
-const flags = { ...planFlags, results: flag.text('a file path, or - for standard input'), json: flag.switch() };
+const flags = { ...modelPlanFlags, results: flag.text('a file path, or - for standard input'), json: flag.switch() };
 
 const PASS_FAIL_WORDS: Record<string, number> = { pass: 0, fail: 1, '0': 0, '1': 1 };
 
@@ -45,12 +46,14 @@ export const command: Command = {
   usage: [
     'Usage: tallyline replay --model passfail --p0 P --p1 P --alpha A --beta B [--truncate N] --results FILE [--json]',
     planFlagsUsage,
+    modelPlanFlagsUsage,
     '  --results FILE             one result a line: pass/fail or 0/1 (passfail), a count (count); - reads stdin',
+    '                             measurement: a value; lifetime: "time T", "fail" or "fail T"; graded: a class name or 0-based index',
     '  --json                     print {decision, n, total, llr, rule} as JSON instead of a table',
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const spec = planSpecFromFlags(values);
+    const anySpec = anyPlanSpecFromFlags(values);
     const path = requireFlag<string>(values, 'results', flags);
     let text: string;
     try {
@@ -59,6 +62,16 @@ export const command: Command = {
       const reason = (error as NodeJS.ErrnoException).code ?? (error as Error).message;
       throw new UsageError('--results', 'a readable file', `--results: cannot read ${JSON.stringify(path)} (${reason})`);
     }
+    if (anySpec.model === 'measurement' || anySpec.model === 'lifetime' || anySpec.model === 'graded') {
+      const { summary, rows } = replayExtended(anySpec, text);
+      if (values.json) io.stdout(`${JSON.stringify(summary)}\n`);
+      else {
+        const table = formatTable(['step', 'entry', 'evidence', 'LLR'], rows.map((row) => [row[0], row[1], row[2], formatNumber(Number(row[3]))]));
+        io.stdout(`${table}\n\nDecision: ${summary.decision} (${summary.rule})\n`);
+      }
+      return EXIT_OK;
+    }
+    const spec: PlanSpec = anySpec;
     let state = decide(spec, 0, 0);
     let n = 0;
     let total = 0;
