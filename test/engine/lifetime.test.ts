@@ -1,0 +1,163 @@
+import jstat from 'jstat';
+import { describe, expect, it } from 'vitest';
+import {
+  PlanParameterError,
+  decideLifetime,
+  designLifetimePlan,
+  fixedDurationRisks,
+  lifetimeBoundaries,
+  lifetimeLiveState,
+  lifetimePlan,
+} from '../../src-main/engine/index.js';
+import type { LifetimeSpec } from '../../src-main/engine/index.js';
+import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
+
+const spec = (d: number, risk: number, extra: Partial<LifetimeSpec> = {}): LifetimeSpec => ({
+  model: 'lifetime', theta0: d, theta1: 1, alpha: risk, beta: risk, ...extra,
+});
+
+/** Independent check: simulate the failure process entry by entry through decideLifetime. */
+function simulate(s: LifetimeSpec, theta: number, runs: number, seed: number) {
+  const plan = lifetimePlan(s);
+  const random = seededRandom(seed);
+  let accepted = 0;
+  let timeSum = 0;
+  for (let run = 0; run < runs; run++) {
+    let time = 0;
+    let failures = 0;
+    for (;;) {
+      const next = time + theta * random.exponential();
+      // Time runs on to the next failure; the test may accept (or reach its maximum time) first.
+      const acceptAt = (failures * plan.llrPerFailure - plan.lnB) / plan.llrPerTime;
+      const stop = Math.min(acceptAt, plan.maxTime ?? Infinity);
+      if (next >= stop) {
+        time = stop;
+        if (decideLifetime(plan, time, failures).decision === 'accept') accepted++;
+        break;
+      }
+      time = next;
+      failures++;
+      const state = decideLifetime(plan, time, failures);
+      if (state.decision !== 'continue') {
+        if (state.decision === 'accept') accepted++;
+        break;
+      }
+    }
+    timeSum += time;
+  }
+  const accept = accepted / runs;
+  return { accept, acceptError: Math.sqrt((accept * (1 - accept)) / runs), expectedTime: timeSum / runs };
+}
+
+describe('lifetime model (exponential MTBF)', () => {
+  // reference-values CV-15 [C]; times in units of theta1.
+  it.each([
+    [1.5, 0.1, 6.5917, 1.2164, 6],
+    [2, 0.1, 4.3944, 1.3863, 4],
+    [3, 0.1, 3.2958, 1.6479, 3],
+    [2, 0.2, 2.7726, 1.3863, 3],
+  ])('reproduces the CV-15 lines for d = %s, alpha = beta = %s', (d, risk, acceptAtZero, slope, firstReject) => {
+    const b = lifetimeBoundaries(lifetimePlan(spec(d, risk)));
+    expect(b.acceptTimeAtZero).toBeCloseTo(acceptAtZero, 4);
+    expect(b.timePerFailure).toBeCloseTo(slope, 4);
+    expect(b.firstRejectFailures).toBe(firstReject);
+  });
+
+  it('matches the MIL-HDBK-781A PRST accept times at zero failures (from memory, low confidence: +-0.05 theta1)', () => {
+    // reference-values CV-15 [M]: plans I-D, III-D, V-D (10/10 %, d = 1.5, 2, 3) accept at about 6.6, 4.40, 3.30.
+    expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(1.5, 0.1))).acceptTimeAtZero - 6.6)).toBeLessThan(0.05);
+    expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(2, 0.1))).acceptTimeAtZero - 4.4)).toBeLessThan(0.05);
+    expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(3, 0.1))).acceptTimeAtZero - 3.3)).toBeLessThan(0.05);
+  });
+
+  // reference-values CV-16 [C] (grid + Richardson, stated tolerance +-2e-4 in P(accept), +-0.02 theta1 in E[T]).
+  it.each([
+    [2, 0.1, 0.9207, 11.94, 11.457, 0.1023, 10.18, 9.101],
+    [1.5, 0.1, 0.9128, 28.6, 27.891, 0.1014, 26.02, 24.369],
+    [3, 0.1, 0.9313, 6.23, 5.85, 0.1035, 4.875, 4.069],
+    [2, 0.2, 0.8439, 5.99, 5.421, 0.211, 5.16, 4.306],
+  ])('reproduces CV-16 exact and Wald OC and E[T] for d = %s, alpha = beta = %s', (d, risk, oc0, time0, waldTime0, oc1, time1, waldTime1) => {
+    const design = designLifetimePlan(spec(d, risk), { curvePoints: 2 });
+    expect(Math.abs(1 - design.exact.alpha - oc0)).toBeLessThanOrEqual(2e-4);
+    expect(Math.abs(design.exact.expectedTimeH0 - time0)).toBeLessThanOrEqual(0.02);
+    expect(Math.abs(design.exact.beta - oc1)).toBeLessThanOrEqual(2e-4);
+    expect(Math.abs(design.exact.expectedTimeH1 - time1)).toBeLessThanOrEqual(0.02);
+    expect(design.wald.expectedTimeH0).toBeCloseTo(waldTime0, 3);
+    expect(design.wald.expectedTimeH1).toBeCloseTo(waldTime1, 3);
+    expect(design.exact.undecided).toBeLessThan(1e-11);
+  });
+
+  it('gives the CV-16 KL rates per theta1 of test time: ln d + 1/d - 1 and (d - 1 - ln d)/d', () => {
+    const design = designLifetimePlan(spec(2, 0.1), { curvePoints: 2 });
+    expect(design.kl.h1h0).toBeCloseTo(0.19315, 5);
+    expect(design.kl.h0h1).toBeCloseTo(0.15343, 5);
+    expect(design.klPerLifetime.h0h1).toBeCloseTo(0.30685, 5);
+  });
+
+  it('the exact recursion agrees with a seeded simulation of a plan truncated by time and failures', () => {
+    const truncated = spec(2, 0.1, { maxTime: 9, maxFailures: 8 });
+    const design = designLifetimePlan(truncated, { curvePoints: 3 });
+    const theta = design.curve[1].theta;
+    const simulated = simulate(truncated, theta, 40000, 3);
+    expect(Math.abs(simulated.accept - design.curve[1].ocExact)).toBeLessThan(4 * simulated.acceptError);
+    expect(simulated.expectedTime / design.curve[1].expectedTimeExact).toBeCloseTo(1, 1);
+    expect(design.exact.undecided).toBeLessThan(1e-12);
+  });
+
+  it('reproduces the recomputed true risks of the MIL-HDBK-781A fixed-duration plans (CV-12: table [M], risks [C])', () => {
+    // plan, d, T (theta1), accept <= c, alpha' %, beta' %.
+    const plans: Array<[string, number, number, number, number, number]> = [
+      ['IX-D', 1.5, 45.0, 36, 11.96, 9.94],
+      ['XII-D', 2.0, 18.8, 13, 9.58, 10.62],
+      ['XV-D', 3.0, 9.3, 5, 9.43, 9.86],
+      ['XXI-D', 3.0, 1.1, 0, 30.7, 33.29],
+    ];
+    for (const [, d, time, c, alpha, beta] of plans) {
+      const risks = fixedDurationRisks(d, 1, time, c);
+      expect(100 * risks.alpha).toBeCloseTo(alpha, 1);
+      expect(100 * risks.beta).toBeCloseTo(beta, 1);
+      // The Poisson CDF itself against jstat (a general-purpose stats library).
+      expect(risks.beta).toBeCloseTo(jstat.poisson.cdf(c, time), 10);
+    }
+  });
+
+  it('the designed fixed-duration test meets both OC points and is shortest: one failure fewer cannot', () => {
+    const design = designLifetimePlan(spec(2, 0.1), { curvePoints: 2 });
+    const { time, acceptFailures } = design.single;
+    expect(design.single.alpha).toBeLessThanOrEqual(0.1);
+    expect(design.single.beta).toBeLessThanOrEqual(0.1 + 1e-12);
+    // Common practice, no source: with c - 1 the time meeting beta fails alpha.
+    expect(fixedDurationRisks(2, 1, time, acceptFailures - 1).beta).toBeLessThan(0.1);
+    expect(fixedDurationRisks(2, 1, time * 0.999, acceptFailures).beta).toBeGreaterThan(0.1);
+  });
+
+  it('liveState at (T, r) continues the same test: from (0, 0) it equals the design, and it is memoryless', () => {
+    const s = spec(2, 0.1);
+    const design = designLifetimePlan(s, { curvePoints: 2 });
+    const start = lifetimeLiveState(s, 0, 0);
+    expect(start.probabilityAcceptH0).toBeCloseTo(1 - design.exact.alpha, 10); // both stop at 1e-12 undecided
+    expect(start.timeToAccept).toBeCloseTo(4.3944, 4);
+    expect(start.failuresToReject).toBe(4);
+    // Law of total probability over the first event (Wald 1947 §3.1, a consequence, no table):
+    // P(acc) = e^{-a0/theta} + int_0^a0 e^{-t/theta}/theta P(acc | (t, 1)) dt, by Simpson's rule.
+    const a0 = 4.394449154672438;
+    const m = 40;
+    let integral = 0;
+    for (let i = 0; i <= m; i++) {
+      const t = (a0 * i) / m;
+      const weight = i === 0 || i === m ? 1 : i % 2 === 1 ? 4 : 2;
+      integral += weight * Math.exp(-t / 2) / 2 * lifetimeLiveState(s, t, 1).probabilityAcceptH0;
+    }
+    expect(Math.exp(-a0 / 2) + (integral * a0) / (3 * m)).toBeCloseTo(1 - design.exact.alpha, 6);
+  });
+
+  it.each([
+    ['theta1', { theta1: 3 }, /theta1 must be less than theta0/],
+    ['maxTime', { maxTime: -1 }, /maxTime must be a number greater than 0/],
+    ['maxFailures', { maxFailures: 1.5 }, /maxFailures must be an integer >= 1/],
+  ])('rejects a bad %s with PlanParameterError naming it', (_, change, message) => {
+    const call = () => lifetimePlan({ ...spec(2, 0.1), ...change } as LifetimeSpec);
+    expect(call).toThrow(PlanParameterError);
+    expect(call).toThrow(message);
+  });
+});

@@ -1,0 +1,159 @@
+import jstat from 'jstat';
+import { describe, expect, it } from 'vitest';
+import {
+  PlanParameterError,
+  decideMeasurement,
+  designMeasurementPlan,
+  measurementLiveState,
+  measurementPlan,
+  measurementWaldPoint,
+  SIEGMUND_RHO,
+} from '../../src-main/engine/index.js';
+import type { MeasurementSpec } from '../../src-main/engine/index.js';
+import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normal-distribution.js';
+import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
+import { waldOperatingPoint } from '../../src-main/engine/numerics/wald-exponent.js';
+
+const spec = (alpha: number, beta: number, delta: number, extra: Partial<MeasurementSpec> = {}): MeasurementSpec => ({
+  model: 'measurement', mu0: 0, mu1: delta, sigma: 1, alpha, beta, ...extra,
+});
+
+/** Independent check: plain simulation of the measurement SPRT, LLR limits (lower, upper), sign rule at the truncation. */
+function simulate(plan: ReturnType<typeof measurementPlan>, mu: number, runs: number, seed: number) {
+  const random = seededRandom(seed);
+  let accepted = 0;
+  let total = 0;
+  for (let run = 0; run < runs; run++) {
+    let n = 0;
+    let sum = 0;
+    for (;;) {
+      n++;
+      sum += mu + plan.spec.sigma * random.normal();
+      const { decision } = decideMeasurement(plan, n, sum);
+      if (decision !== 'continue') {
+        if (decision === 'accept') accepted++;
+        break;
+      }
+    }
+    total += n;
+  }
+  return { accept: accepted / runs, acceptError: Math.sqrt((accepted / runs) * (1 - accepted / runs) / runs), asn: total / runs };
+}
+
+describe('measurement model (normal mean, sigma known)', () => {
+  // reference-values CV-17 [C]: exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
+  // probabilities and 1e-3 relative for ASN, as the notes suggest for [C] values.
+  const rows: Array<[number, number, number, number, number, number, number, number]> = [
+    // alpha, beta, delta, theta, exact OC, exact ASN, corrected OC, corrected ASN
+    [0.05, 0.1, 1, 0, 0.97066, 5.565, 0.97075, 5.299],
+    [0.05, 0.1, 1, 0.5, 0.55071, 10.091, 0.55067, 9.842],
+    [0.05, 0.1, 1, 1, 0.05731, 6.492, 0.05706, 6.226],
+    [0.05, 0.05, 1, 0, 0.97136, 6.92, 0.97145, 6.651],
+    [0.05, 0.05, 1, 0.5, 0.5, 12.691, 0.5, 12.44],
+    [0.05, 0.05, 0.5, 0, 0.96214, 24.186, 0.96216, 23.927],
+    [0.01, 0.01, 0.5, 0, 0.9925, 38.766, 0.99251, 38.506],
+  ];
+  it.each(rows)('reproduces CV-17 exact and Siegmund-corrected OC/ASN (alpha %s, beta %s, delta %s, mu %s)', (alpha, beta, delta, mu, oc, asn, ocCorrected, asnCorrected) => {
+    const design = designMeasurementPlan(spec(alpha, beta, delta), { curvePoints: 5 }); // mu = -d/2, 0, d/2, d, 3d/2
+    const point = design.curve.find((p) => Math.abs(p.theta - mu) < 1e-12) ?? design.curve[0];
+    expect(point.theta).toBeCloseTo(mu, 12);
+    expect(point.ocExact).toBeCloseTo(oc, 4);
+    expect(point.asnExact / asn).toBeCloseTo(1, 3);
+    expect(point.ocCorrected).toBeCloseTo(ocCorrected, 4);
+    expect(point.asnCorrected / asnCorrected).toBeCloseTo(1, 3);
+  });
+
+  it('checks the CV-17 exact OC at delta = 1 by a seeded simulation (CV-17 quotes 0.97133 +- 0.00026 from 4e5 runs)', () => {
+    const plan = measurementPlan(spec(0.05, 0.05, 1));
+    const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
+    const simulated = simulate(plan, 0, 60000, 17);
+    expect(Math.abs(simulated.accept - (1 - design.exact.alpha))).toBeLessThan(4 * simulated.acceptError);
+    expect(simulated.asn / design.exact.asnH0).toBeCloseTo(1, 1);
+  });
+
+  it('gives the fixed-sample n of CV-17/19: ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
+    // reference-values CV-17 "fixed n" column [C].
+    expect(designMeasurementPlan(spec(0.05, 0.1, 1), { curvePoints: 2 }).single.exactN).toBeCloseTo(8.564, 3);
+    expect(designMeasurementPlan(spec(0.01, 0.01, 0.5), { curvePoints: 2 }).single.exactN).toBeCloseTo(86.59, 2);
+    // CV-19 [C]: Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
+    const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
+    expect(design.wald.asnH0 / design.single.exactN).toBeCloseTo(0.4897, 4);
+  });
+
+  it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (CV-18, computed)', () => {
+    expect(SIEGMUND_RHO).toBeCloseTo(0.5826, 4);
+  });
+
+  it('with the overshoot correction, the exact risks come to nominal (Fredholm, and a seeded simulation)', () => {
+    // Common practice, no source: the corrected limits aim at the nominal risks; Wald's plain limits give 0.029 (CV-17).
+    const corrected = spec(0.05, 0.05, 1, { overshootCorrection: true });
+    const design = designMeasurementPlan(corrected, { curvePoints: 2 });
+    expect(Math.abs(design.exact.alpha - 0.05)).toBeLessThan(0.003);
+    expect(Math.abs(design.exact.beta - 0.05)).toBeLessThan(0.003);
+    const simulated = simulate(measurementPlan(corrected), 0, 40000, 5);
+    expect(Math.abs(1 - simulated.accept - design.exact.alpha)).toBeLessThan(4 * simulated.acceptError);
+  });
+
+  it('the truncated density recursion agrees with a seeded simulation of the truncated plan', () => {
+    const truncated = spec(0.05, 0.1, 0.5, { truncation: 20 });
+    const design = designMeasurementPlan(truncated, { curvePoints: 2 });
+    const simulated = simulate(measurementPlan(truncated), 0.5, 40000, 9);
+    expect(Math.abs(simulated.accept - design.exact.beta)).toBeLessThan(4 * simulated.acceptError);
+    expect(simulated.asn / design.exact.asnH1).toBeCloseTo(1, 1);
+    // A truncation far beyond the tail changes nothing: same as the untruncated integral equations.
+    const far = designMeasurementPlan(spec(0.05, 0.1, 1, { truncation: 400 }), { curvePoints: 2 });
+    expect(far.exact.alpha).toBeCloseTo(1 - 0.97066, 4);
+  });
+
+  it('Wald closed form equals the general root-finding solution of E[exp(h z)] = 1', () => {
+    const plan = measurementPlan(spec(0.05, 0.1, 0.7));
+    for (const mu of [-0.3, 0.1, 0.35, 0.6, 1.1]) {
+      const m = plan.llrPerUnit * (mu - plan.midpoint);
+      const s2 = plan.stepScale ** 2;
+      const general = waldOperatingPoint({ mean: m, secondMoment: s2 + m * m, logMomentGenerating: (h) => h * m + 0.5 * h * h * s2 }, plan.lnA, plan.lnB);
+      const closed = measurementWaldPoint(plan, mu, plan.lnA, plan.lnB);
+      expect(closed.oc).toBeCloseTo(general.oc, 10);
+      expect(closed.asn).toBeCloseTo(general.asn, 8);
+    }
+  });
+
+  it('a rejectable mean below mu0 mirrors the plan (same risks, lines below)', () => {
+    const up = designMeasurementPlan({ ...spec(0.05, 0.1, 1), mu0: 10, mu1: 11 }, { curvePoints: 2 });
+    const down = designMeasurementPlan({ ...spec(0.05, 0.1, 1), mu0: 10, mu1: 9 }, { curvePoints: 2 });
+    expect(down.boundaries.rejectWhen).toBe('below');
+    expect(down.exact.alpha).toBeCloseTo(up.exact.alpha, 10);
+    expect(down.exact.asnH1).toBeCloseTo(up.exact.asnH1, 8);
+    // Mirrored about mu0 = 10 for one measurement.
+    expect(down.limits[0].reject).toBeCloseTo(2 * 10 - up.limits[0].reject, 10);
+  });
+
+  it('the normal distribution function matches jstat to 1e-14 and the quantile inverts it', () => {
+    for (let x = -8; x <= 8; x += 0.37) expect(Math.abs(normalCdf(x) - jstat.normal.cdf(x, 0, 1))).toBeLessThan(1e-14);
+    for (const p of [1e-6, 0.01, 0.3, 0.9, 0.999]) expect(normalCdf(normalQuantile(p))).toBeCloseTo(p, 14);
+  });
+
+  it('liveState reads the evidence (n, sum): decision, next-value thresholds and the look-ahead', () => {
+    const plain = spec(0.05, 0.1, 1);
+    const start = measurementLiveState(plain, 0, 0);
+    const design = designMeasurementPlan(plain, { curvePoints: 2 });
+    expect(start.probabilityAcceptH0).toBeCloseTo(1 - design.exact.alpha, 10);
+    expect(start.expectedRemainingH1).toBeCloseTo(design.exact.asnH1, 8);
+    // The next value at the threshold lands exactly on the line (Wald 1947 §3.1: on the line decides).
+    const after = measurementLiveState(plain, 2, 1.2);
+    expect(decideMeasurement(measurementPlan(plain), 3, 1.2 + (after.nextValueRejects as number)).decision).toBe('reject');
+    expect(decideMeasurement(measurementPlan(plain), 3, 1.2 + (after.nextValueAccepts as number)).decision).toBe('accept');
+    expect(measurementLiveState(plain, 3, 6).decision).toBe('reject');
+    expect(measurementLiveState(plain, 3, 6).probabilityAcceptH0).toBe(0);
+  });
+
+  it.each([
+    ['sigma', { sigma: 0 }, /sigma must be a number greater than 0/],
+    ['mu1', { mu1: 0 }, /mu1 must differ from mu0/],
+    ['truncation', { truncation: 0 }, /truncation must be a positive integer/],
+    ['overshootCorrection', { mu1: 6, overshootCorrection: true }, /overshootCorrection would pull a limit past 0/],
+  ])('rejects a bad %s with PlanParameterError naming it', (parameter, change, message) => {
+    const call = () => measurementPlan({ ...spec(0.05, 0.1, 1), ...change } as MeasurementSpec);
+    expect(call).toThrow(PlanParameterError);
+    expect(call).toThrow(message);
+  });
+});
