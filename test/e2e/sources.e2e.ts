@@ -89,6 +89,13 @@ test.describe('the demo data folder', () => {
     await page.screenshot({ path: 'test/artifacts/sources-summary-dark.png', fullPage: true });
     await page.getByRole('button', { name: 'Switch to light theme' }).click();
     await page.getByTestId('source-register').screenshot({ path: 'test/artifacts/sources-register.png' });
+    // Tall enough that the whole summary, down to the last run, is in the picture.
+    await page.setViewportSize({ width: 1280, height: 1100 });
     await page.getByTestId('source-detail').screenshot({ path: 'test/artifacts/sources-summary-detail.png' });
+
+    // A lot hands over to the Records place, which owns the read-only run and its record.
+    await page.getByTestId('source-runs').getByRole('button', { name: 'BW-0419' }).click();
+    await expect(page.getByRole('button', { name: 'Records', exact: true })).toHaveAttribute('aria-current', 'page');
+    await expect(page.locator('main')).toContainText('BW-0419');
   });
 });
