@@ -186,7 +186,10 @@ test('the table copies as CSV', async ({ page, host, context }) => {
   const text = await page.evaluate(() => navigator.clipboard.readText());
   const lines = text.split('\r\n');
   expect(lines[0]).toBe('Items inspected,Accept if nonconforming items at most,Reject if nonconforming items at least');
-  expect(lines[1]).toBe('1,,2'); // no acceptance yet after one item; reject at 2 (ceil(0.0397 + 1.205))
+  // NIST/SEMATECH e-Handbook §6.2.6 table marks n = 1 "x" for both (reference-values CV-02: the
+  // rejection number ceil(0.0397 + 1.205) = 2 exceeds one item); from n = 2 rejection is at 2.
+  expect(lines[1]).toBe('1,,');
+  expect(lines[2]).toBe('2,,2');
 });
 
 for (const size of [
