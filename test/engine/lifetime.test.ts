@@ -1,4 +1,4 @@
-import jstat from 'jstat';
+import jstatModule from 'jstat';
 import { describe, expect, it } from 'vitest';
 import {
   PlanParameterError,
@@ -11,6 +11,9 @@ import {
 } from '../../src-main/engine/index.js';
 import type { LifetimeSpec } from '../../src-main/engine/index.js';
 import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
+
+// jstat ships no types; the one call these tests use.
+const jstat = jstatModule as unknown as { poisson: { cdf(k: number, mean: number): number } };
 
 const spec = (d: number, risk: number, extra: Partial<LifetimeSpec> = {}): LifetimeSpec => ({
   model: 'lifetime', theta0: d, theta1: 1, alpha: risk, beta: risk, ...extra,

@@ -1,4 +1,4 @@
-import jstat from 'jstat';
+import jstatModule from 'jstat';
 import { describe, expect, it } from 'vitest';
 import {
   PlanParameterError,
@@ -13,6 +13,9 @@ import type { MeasurementSpec } from '../../src-main/engine/index.js';
 import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normal-distribution.js';
 import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
 import { waldOperatingPoint } from '../../src-main/engine/numerics/wald-exponent.js';
+
+// jstat ships no types; the one call these tests use.
+const jstat = jstatModule as unknown as { normal: { cdf(x: number, mean: number, sd: number): number } };
 
 const spec = (alpha: number, beta: number, delta: number, extra: Partial<MeasurementSpec> = {}): MeasurementSpec => ({
   model: 'measurement', mu0: 0, mu1: delta, sigma: 1, alpha, beta, ...extra,
