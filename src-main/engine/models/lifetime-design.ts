@@ -100,7 +100,8 @@ export function designLifetimePlan(spec: LifetimeSpec, options: { curvePoints?: 
     limits.push({
       failures: r,
       acceptTime: rejectAll || (plan.maxTime !== null && accept > plan.maxTime) ? null : accept,
-      rejectTime: rejectAll ? (plan.maxTime ?? Number.MAX_VALUE) : reject > 0 && r > 0 ? reject : null,
+      // At maxFailures every undecided test rejects: it can still be running until the previous accept time.
+      rejectTime: rejectAll ? Math.min(acceptTime(plan, r - 1), plan.maxTime ?? Number.POSITIVE_INFINITY) : reject > 0 && r > 0 ? reject : null,
     });
   }
   return {
