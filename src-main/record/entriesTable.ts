@@ -42,7 +42,7 @@ function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], m
     ['Result', (entry) => resultLabel(model, entry.nonconformities), 80],
     ['Category', (entry) => entry.category ?? '', 70],
     ['Note', (entry) => entry.note ?? '', Number.POSITIVE_INFINITY],
-    ['Actor', (entry) => entry.actor, 70],
+    ['Actor', (entry) => entry.actor, 110],
   ];
   const columns = specs.map(([title, text, cap]) => ({ title, text, width: cap === Number.POSITIVE_INFINITY ? 0 : fit(title, entries.map(text), cap) }));
   const noteColumn = columns[5];
