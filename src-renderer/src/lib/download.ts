@@ -3,7 +3,19 @@
  * Electron's renderer, so saving a file needs no channel and the renderer never touches disk.
  */
 export function downloadText(fileName: string, text: string, type = 'application/json'): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
+  downloadBlob(fileName, new Blob([text], { type }));
+}
+
+/** Bytes that crossed a channel as base64 (a record PDF, a backup archive), offered as a download. */
+export function downloadBase64(fileName: string, base64: string, type: string): void {
+  const binary = atob(base64);
+  const bytes = new Uint8Array(binary.length);
+  for (let index = 0; index < binary.length; index += 1) bytes[index] = binary.charCodeAt(index);
+  downloadBlob(fileName, new Blob([bytes], { type }));
+}
+
+function downloadBlob(fileName: string, blob: Blob): void {
+  const url = URL.createObjectURL(blob);
   const link = document.createElement('a');
   link.href = url;
   link.download = fileName;

@@ -6,7 +6,7 @@
 import { request } from '../../lib/channelClient';
 import type { RecordRunView } from '../../../../src-main/api/channels/recordChannels';
 import type { HistoryDecision, RunHistory } from '../../../../src-main/record/runHistory';
-import { downloadBase64, downloadText } from './recordFiles';
+import { downloadBase64, downloadText } from '../../lib/download';
 
 export interface HistoryFilterState {
   sourceId: string;
