@@ -14,7 +14,21 @@ import type { PlanSpec } from './spec.js';
 import { checkInteger } from './validate.js';
 
 /** Where a run stands after n items with cumulative count `total`, and where it is likely to go. */
-export interface LiveState {
+/**
+ * What a run can still expect from where it stands, under H0, H1 and the current estimate: the
+ * probability of ending in acceptance and the items (or test time) still to go. Every model's live
+ * state carries these.
+ */
+export interface LookAhead {
+  probabilityAcceptH0: number;
+  probabilityAcceptH1: number;
+  probabilityAcceptEstimate: number | null;
+  expectedRemainingH0: number;
+  expectedRemainingH1: number;
+  expectedRemainingEstimate: number | null;
+}
+
+export interface LiveState extends LookAhead {
   n: number;
   total: number;
   decision: Decision;
@@ -32,12 +46,6 @@ export interface LiveState {
   nonconformingToReject: number | null;
   /** The current estimate of the quality: total / n (null before the first item). */
   estimate: number | null;
-  probabilityAcceptH0: number;
-  probabilityAcceptH1: number;
-  probabilityAcceptEstimate: number | null;
-  expectedRemainingH0: number;
-  expectedRemainingH1: number;
-  expectedRemainingEstimate: number | null;
 }
 
 /** The decision alone, cheap enough for every entry of a replay. */

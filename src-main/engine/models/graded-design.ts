@@ -1,4 +1,5 @@
 import { PlanParameterError } from '../errors.js';
+import type { LookAhead } from '../live-state.js';
 import { classCountRecursion } from '../graded/class-count-exact.js';
 import { simulateGradedSprt } from '../graded/graded-simulation.js';
 import type { SimulatedPoint } from '../graded/graded-simulation.js';
@@ -9,6 +10,7 @@ import { checkInteger } from '../validate.js';
 import type { KlDivergences } from './model.js';
 import { decideGraded, gradedBoundaries, gradedIncrementLaw, gradedKl, gradedPlan, gradedQuality } from './graded.js';
 import type { GradedBoundaries, GradedPlan } from './graded.js';
+import { gradedLimitRows } from './extended-limit-rows.js';
 
 /** Largest item count the exact recursion runs to (k <= 3); beyond it the design simulates. */
 export const GRADED_EXACT_LIMIT = 400;
@@ -118,12 +120,7 @@ export function designGradedPlan(spec: GradedSpec, options: GradedDesignOptions 
   }
   const boundaries = gradedBoundaries(plan);
   const length = plan.truncation ?? Math.ceil(3 * neutral.asn);
-  const limits = [];
-  for (let n = 1; n <= length; n++) {
-    const atTruncation = n === plan.truncation;
-    const accept = boundaries.slope * n - (atTruncation ? 0 : boundaries.h1);
-    limits.push({ n, accept: accept < 0 ? null : accept, reject: boundaries.slope * n + (atTruncation ? 0 : boundaries.h2) });
-  }
+  const limits = gradedLimitRows(plan, length);
   return {
     model: 'graded',
     boundaries,
@@ -156,7 +153,7 @@ export function designGradedPlan(spec: GradedSpec, options: GradedDesignOptions 
 }
 
 /** Where a graded run stands after its counts per class. */
-export interface GradedLiveState {
+export interface GradedLiveState extends LookAhead {
   counts: number[];
   n: number;
   /** Total demerits (second class = 1). */
@@ -167,13 +164,7 @@ export interface GradedLiveState {
   /** Demerit lines at the current n (accept null while acceptance is impossible). */
   acceptDemerits: number | null;
   rejectDemerits: number;
-  /** P(accept) and expected remaining items under p0, p1 and the observed class shares (exact for k <= 3 within 400 items, else simulated). */
-  probabilityAcceptH0: number;
-  probabilityAcceptH1: number;
-  probabilityAcceptEstimate: number | null;
-  expectedRemainingH0: number;
-  expectedRemainingH1: number;
-  expectedRemainingEstimate: number | null;
+  /** How the look-ahead under p0, p1 and the observed class shares was found: exact for k <= 3 within 400 items, else simulated. */
   method: 'exact' | 'simulated';
 }
 

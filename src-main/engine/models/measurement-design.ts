@@ -1,4 +1,5 @@
 import { createNormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
+import type { LookAhead } from '../live-state.js';
 import type { NormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
 import { PlanParameterError } from '../errors.js';
 import type { Decision } from '../integer-lines.js';
@@ -16,6 +17,7 @@ import {
   SIEGMUND_RHO,
 } from './measurement.js';
 import type { MeasurementBoundaries, MeasurementPlan } from './measurement.js';
+import { measurementLimitRows } from './extended-limit-rows.js';
 
 /** One quality on the measurement plan's curves; theta is the true mean. */
 export interface MeasurementCurvePoint {
@@ -117,13 +119,7 @@ export function designMeasurementPlan(spec: MeasurementSpec, options: { curvePoi
 
   const boundaries = measurementBoundaries(plan);
   const length = plan.truncation ?? 3 * singleN;
-  const limits = [];
-  for (let n = 1; n <= length; n++) {
-    const atTruncation = n === plan.truncation;
-    const accept = plan.midpoint * n + (atTruncation ? 0 : lower / plan.llrPerUnit);
-    const reject = plan.midpoint * n + (atTruncation ? 0 : upper / plan.llrPerUnit);
-    limits.push({ n, accept, reject });
-  }
+  const limits = measurementLimitRows(plan, length);
   return {
     model: 'measurement',
     boundaries,
@@ -169,7 +165,7 @@ export function measurementTruncationRule(plan: MeasurementPlan): string {
 }
 
 /** Where a measurement run stands after n values with the given sum. */
-export interface MeasurementLiveState {
+export interface MeasurementLiveState extends LookAhead {
   n: number;
   sum: number;
   /** sum / n, null before the first value. */
@@ -181,12 +177,6 @@ export interface MeasurementLiveState {
   nextValueAccepts: number | null;
   /** The next value rejects at once if at least ('above') or at most ('below') this. */
   nextValueRejects: number | null;
-  probabilityAcceptH0: number;
-  probabilityAcceptH1: number;
-  probabilityAcceptEstimate: number | null;
-  expectedRemainingH0: number;
-  expectedRemainingH1: number;
-  expectedRemainingEstimate: number | null;
 }
 
 /**
