@@ -4,27 +4,14 @@
  * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
  */
 import { createInterface } from 'node:readline';
-import type { ItemResult, RunService } from '../inspection/index.js';
+import type { RunService } from '../inspection/index.js';
+import { parseFeedLine } from './feed-parse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
 import { dataDirectoryFlags, runServiceFor } from './run.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), actor: flag.text('a name'), json: flag.switch() };
-
-const PASS_FAIL_WORDS: Record<string, ItemResult> = { pass: 'pass', fail: 'fail', '0': 'pass', '1': 'fail' };
-
-/** The result on one input line, null for a blank or # comment line, or a sentence saying what is wrong. */
-export function parseFeedLine(model: 'passfail' | 'count', line: string): ItemResult | null | { problem: string } {
-  const text = line.trim();
-  if (text === '' || text.startsWith('#')) return null;
-  if (model === 'passfail') {
-    return PASS_FAIL_WORDS[text.toLowerCase()] ?? { problem: `${JSON.stringify(text)} is not pass, fail, 0 or 1` };
-  }
-  return /^\d+$/.test(text) && Number.isSafeInteger(Number(text))
-    ? Number(text)
-    : { problem: `${JSON.stringify(text)} is not a whole number of nonconformities (0 or more)` };
-}
 
 export interface FeedOptions {
   readonly runId: string;
@@ -46,17 +33,18 @@ export async function feedLines(service: RunService, lines: AsyncIterable<string
   if (opened.recovered !== null) {
     io.stderr(`tallyline feed: a torn final line (${opened.recovered.length} bytes) was moved to quarantine\n`);
   }
-  const model = opened.plan.spec.model;
+  const spec = opened.plan.spec;
   const actor = options.actor ?? opened.run.inspector ?? 'station';
   let lineNumber = 0;
   for await (const line of lines) {
     lineNumber += 1;
-    const result = parseFeedLine(model, line);
-    if (result === null) continue;
-    if (typeof result === 'object') {
-      io.stderr(`tallyline feed: line ${lineNumber}: ${result.problem}\n`);
+    const parsed = parseFeedLine(spec, line);
+    if (parsed === null) continue;
+    if ('problem' in parsed) {
+      io.stderr(`tallyline feed: line ${lineNumber}: ${parsed.problem}\n`);
       return EXIT_USAGE;
     }
+    const { result } = parsed;
     let outcome;
     try {
       outcome = await service.recordResult(options.runId, { result, actor });
@@ -75,7 +63,9 @@ export const command: Command = {
   summary: 'record results for a run from standard input, one a line',
   usage: [
     'Usage: tallyline feed --run ID [--actor NAME] [--data-dir DIR] [--json]',
-    '  stdin                      one result a line: pass/fail or 0/1 (passfail), a count (count); # comments',
+    '  stdin                      one result a line; # comments:',
+    '                             passfail: pass/fail or 0/1; count: a whole number; measurement: a number;',
+    '                             lifetime: "time T" (accumulated test time), "fail" or "fail T"; graded: a class name or 0-based index',
     '  --json                     after each durable entry print {"seq": N, "state": "continue"|"accept"|"reject"}',
     '  exit 0 after the deciding line or at end of input; exit 2 on a bad line (its number on stderr)',
   ].join('\n'),

@@ -57,3 +57,6 @@ export { gradedPlan, decideGraded, gradedBoundaries, gradedKl, gradedQuality } f
 export type { GradedPlan, GradedBoundaries, GradedDecision } from './models/graded.js';
 export { designGradedPlan, gradedLiveState, GRADED_EXACT_LIMIT } from './models/graded-design.js';
 export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptions } from './models/graded-design.js';
+export { designAnyPlan, checkAnyPlanSpec, isExtendedPlanSpec } from './design-any-plan.js';
+export type { AnyPlanDesign } from './design-any-plan.js';
+export { measurementLimitRows, lifetimeLimitRows, gradedLimitRows } from './models/extended-limit-rows.js';

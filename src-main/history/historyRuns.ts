@@ -16,6 +16,7 @@ export function historyRunReader(dataDirectory: string): (runs: readonly RunSumm
     Promise.all(
       runs.map(async (run): Promise<HistoryRun> => {
         const plan = await planOf(run);
+        const model = plan?.spec.model ?? 'passfail';
         return {
           id: run.id,
           startedAt: run.createdAt,
@@ -24,11 +25,12 @@ export function historyRunReader(dataDirectory: string): (runs: readonly RunSumm
           part: plan?.part ?? null,
           characteristic: plan?.characteristic ?? null,
           // A run whose plan file is gone still counts; pass/fail is the model every plan had before count.
-          model: plan?.spec.model ?? 'passfail',
+          model,
           status: run.status,
           decision: run.decision,
           itemsInspected: run.n,
-          nonconformingFound: run.total,
+          // A sum of measurements, failures or demerits is not a count of nonconforming items.
+          nonconformingFound: model === 'passfail' || model === 'count' ? run.total : 0,
           verified: run.ok,
         };
       }),

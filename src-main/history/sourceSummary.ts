@@ -3,7 +3,7 @@
  * nonconforming found, the decisions over time, and the pooled fraction with its caveat.
  * Pure: takes the runs as plain data, reads nothing.
  */
-import type { PlanSpec } from '../engine/index.js';
+import type { AnyPlanSpec, PlanSpec } from '../engine/index.js';
 
 /** One run as the summary needs it. */
 export interface HistoryRun {
@@ -15,13 +15,13 @@ export interface HistoryRun {
   /** From the plan version, when it named them. */
   readonly part: string | null;
   readonly characteristic: string | null;
-  readonly model: PlanSpec['model'];
+  readonly model: AnyPlanSpec['model'];
   /** Closed with a decision, or still open (never decided, or reopened by an override). */
   readonly status: 'open' | 'closed';
   readonly decision: 'continue' | 'accept' | 'reject';
   /** Items inspected (voided entries not counted). */
   readonly itemsInspected: number;
-  /** Nonconforming items (pass/fail) or nonconformities (count) found. */
+  /** Nonconforming items (pass/fail) or nonconformities (count) found; 0 for the other models. */
   readonly nonconformingFound: number;
   /** False when the run's journal does not verify; such a run is counted but flagged. */
   readonly verified: boolean;
@@ -90,7 +90,8 @@ export function summariseSource(runs: readonly HistoryRun[]): SourceSummary {
   const sum = (list: readonly HistoryRun[], key: 'itemsInspected' | 'nonconformingFound') =>
     list.reduce((total, run) => total + run[key], 0);
 
-  const models = [...new Set(decided.map((run) => run.model))].sort();
+  // Only fractions and rates per item pool; measurements, test times and grades have no such figure.
+  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is PlanSpec['model'] => model === 'passfail' || model === 'count').sort();
   const pooled = models.map((model): PooledFigure => {
     const ofModel = decided.filter((run) => run.model === model);
     const itemsInspected = sum(ofModel, 'itemsInspected');

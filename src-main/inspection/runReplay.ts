@@ -16,7 +16,7 @@ import {
   type RunHeader,
   type RunStatus,
 } from './runTypes.js';
-import { resultTotal } from './runState.js';
+import { RunEvidence } from './runEvidence.js';
 
 export class RunJournalContentError extends Error {
   readonly code = 'RUN_JOURNAL_CONTENT';
@@ -32,11 +32,22 @@ export class RunReplay {
   readonly results: MutableEntryView[] = [];
   status: RunStatus = 'open';
   lastClose: (ClosePayload & { time: string }) | null = null;
-  /** Items counted (not voided) and their total, kept up to date entry by entry. */
-  n = 0;
-  total = 0;
+  /** The evidence of the counted (not voided) results, kept up to date entry by entry. */
+  evidence: RunEvidence;
 
-  private constructor(readonly header: RunHeader) {}
+  private constructor(readonly header: RunHeader) {
+    this.evidence = new RunEvidence(header.plan.spec);
+  }
+
+  /** Results counted (not voided). */
+  get n(): number {
+    return this.evidence.n;
+  }
+
+  /** Their total: nonconforming items or nonconformities (passfail, count); the sum (measurement). */
+  get total(): number {
+    return this.evidence.total;
+  }
 
   static fromEntries(entries: readonly JournalEntry[]): RunReplay {
     const first = entries[0];
@@ -56,8 +67,7 @@ export class RunReplay {
       case 'result': {
         const payload = checked(entry.seq, resultPayloadSchema, entry.payload);
         this.results.push({ seq: entry.seq, time: entry.time, offset: entry.offset, actor: entry.actor, ...payload, voided: false, voidReason: null });
-        this.n += 1;
-        this.total += resultTotal(payload.result);
+        this.evidence.add(payload.result);
         return;
       }
       case 'void': {
@@ -68,8 +78,8 @@ export class RunReplay {
         }
         target.voided = true;
         target.voidReason = payload.reason;
-        this.n -= 1;
-        this.total -= resultTotal(target.result);
+        // Rebuilt rather than subtracted: a voided lifetime time reading gives back the previous time.
+        this.evidence = RunEvidence.of(this.header.plan.spec, this.results.filter((result) => !result.voided).map((result) => result.result));
         return;
       }
       case 'override':

@@ -4,6 +4,7 @@
  * with the engine's decision and rule as soon as the statistics reach one.
  */
 import { readFile } from 'node:fs/promises';
+import type { AnyPlanSpec } from '../engine/index.js';
 import {
   JournalBusyError,
   JournalTamperedError,
@@ -19,7 +20,7 @@ import {
   type QuarantineRecord,
 } from '../store/index.js';
 import { RunReplay } from './runReplay.js';
-import { resultProblem, runState } from './runState.js';
+import { gradeIndex, resultProblem } from './runState.js';
 import type { ItemResult, RunEntryView, RunState, RunSummary, RunView } from './runTypes.js';
 
 export interface StartRunInput {
@@ -54,6 +55,15 @@ export class RunClosedError extends Error {
   constructor(readonly runId: string, decision: string) {
     super(`run ${runId} is closed with "${decision}": record an override with a reason before entering more`);
     this.name = 'RunClosedError';
+  }
+}
+
+/** A result that does not fit the run's plan (wrong shape for the model, a test time going down, an unknown class). */
+export class ResultRefusedError extends Error {
+  readonly code = 'RESULT_REFUSED';
+  constructor(readonly model: string, problem: string) {
+    super(problem);
+    this.name = 'ResultRefusedError';
   }
 }
 
@@ -142,7 +152,7 @@ export function createRunService(options: RunServiceOptions) {
   }
 
   function stateOf(replay: RunReplay): RunState {
-    return runState(replay.header.plan.spec, replay.n, replay.total);
+    return replay.evidence.state();
   }
 
   /** Close the run when the statistics have reached a decision (or the truncation point). */
@@ -230,11 +240,12 @@ export function createRunService(options: RunServiceOptions) {
       return exclusive(runId, async () => {
         const handle = await writable(runId);
         openForEntry(runId, handle);
-        const problem = resultProblem(handle.replay.header.plan.spec, input.result);
-        if (problem !== null) throw new Error(problem);
+        const spec = handle.replay.header.plan.spec;
+        const problem = resultProblem(spec, input.result, handle.replay.evidence.time);
+        if (problem !== null) throw new ResultRefusedError(spec.model, problem);
         const entry = await handle.writer.append('result', input.actor, {
           itemId: input.itemId?.trim() || null,
-          result: input.result,
+          result: canonicalResult(spec, input.result),
           category: input.category?.trim() || null,
           note: input.note?.trim() || null,
         });
@@ -331,4 +342,10 @@ export function createRunService(options: RunServiceOptions) {
       await Promise.all(handles.map((handle) => handle.writer.close()));
     },
   };
+}
+
+/** A graded result names its class exactly as the plan spells it; other results are kept as given. */
+function canonicalResult(spec: AnyPlanSpec, result: ItemResult): ItemResult {
+  if (spec.model !== 'graded' || typeof result !== 'object' || !('grade' in result)) return result;
+  return { grade: spec.classes[gradeIndex(spec.classes, result.grade)] };
 }

@@ -6,8 +6,36 @@ import { z } from 'zod';
 import { JOURNAL_FORMAT, planVersionSchema, type JournalProblem, type PlanVersion, type QuarantineRecord } from '../store/index.js';
 
 export type Decision = 'continue' | 'accept' | 'reject';
-/** One item's result: pass/fail for the passfail model, a count of nonconformities for the count model. */
-export type ItemResult = 'pass' | 'fail' | number;
+/** A measured value (measurement model), in the plan's unit. */
+export interface MeasurementResult {
+  readonly value: number;
+}
+/** A reading of accumulated test time, or a failure (at an accumulated time, when given) (lifetime model). */
+export type LifetimeResult = { readonly time: number } | { readonly failure: true; readonly time?: number };
+/** The class an item was graded into, by name (graded model). */
+export interface GradedResult {
+  readonly grade: string;
+}
+/**
+ * One entry's result, per model: passfail 'pass' | 'fail'; count a whole number >= 0; measurement
+ * `{value}`; lifetime `{time}` or `{failure: true, time?}`; graded `{grade}`.
+ */
+export type ItemResult = 'pass' | 'fail' | number | MeasurementResult | LifetimeResult | GradedResult;
+
+const finiteNumber = z.number().finite();
+/** The shape of a result, any model; which one a run takes is checked against its plan (resultProblem). */
+export const itemResultSchema = z.union(
+  [
+    z.literal('pass'),
+    z.literal('fail'),
+    z.number().int('A count is a whole number.').nonnegative('A count is 0 or more.'),
+    z.strictObject({ value: finiteNumber }),
+    z.strictObject({ time: finiteNumber.nonnegative('A test time is 0 or more.') }),
+    z.strictObject({ failure: z.literal(true), time: finiteNumber.nonnegative('A test time is 0 or more.').optional() }),
+    z.strictObject({ grade: z.string().trim().min(1, 'A grade names a class.').max(120) }),
+  ],
+  { error: 'A result is "pass" or "fail", a whole number of 0 or more, {value}, {time}, {failure: true, time?} or {grade}.' },
+);
 
 export const runRecordSchema = z.object({
   id: z.string().min(1),
@@ -37,7 +65,7 @@ export interface RunHeader {
 
 export const resultPayloadSchema = z.object({
   itemId: z.string().nullable(),
-  result: z.union([z.literal('pass'), z.literal('fail'), z.number().int().nonnegative()]),
+  result: itemResultSchema,
   category: z.string().nullable(),
   note: z.string().nullable(),
 });
@@ -53,7 +81,8 @@ export const closePayloadSchema = z.object({
   decision: z.enum(['accept', 'reject']),
   rule: z.string(),
   n: z.number().int().nonnegative(),
-  total: z.number().nonnegative(),
+  /** Nonconforming items, nonconformities, the sum of measurements (may be negative), failures or demerits. */
+  total: z.number(),
   llr: z.number(),
 });
 export type ClosePayload = z.infer<typeof closePayloadSchema>;
@@ -72,13 +101,40 @@ export interface RunEntryView {
   readonly voidReason: string | null;
 }
 
-/** The statistics of a run now: items inspected, their total (nonconforming items or nonconformities). */
-export interface RunState {
+/**
+ * The statistics of a run now. Common: decision, rule (null while continuing), llr, n, total.
+ * - passfail / count (no `model` field): n items, total nonconforming items or nonconformities.
+ * - measurement: n values, total = sum, plus `sum` and `mean` (null before the first value).
+ * - lifetime: n counted entries, total = failures, plus `time` (accumulated test time; at a decision
+ *   by a time reading, the time the line was reached) and `failures`.
+ * - graded: n items, total = demerits, plus `counts` per class (in the plan's class order) and `demerits`.
+ */
+export type RunState = CountRunState | MeasurementRunState | LifetimeRunState | GradedRunState;
+
+interface RunStateCommon {
   readonly decision: Decision;
   readonly n: number;
   readonly total: number;
   readonly llr: number;
   readonly rule: string | null;
+}
+export interface CountRunState extends RunStateCommon {
+  readonly model?: undefined;
+}
+export interface MeasurementRunState extends RunStateCommon {
+  readonly model: 'measurement';
+  readonly sum: number;
+  readonly mean: number | null;
+}
+export interface LifetimeRunState extends RunStateCommon {
+  readonly model: 'lifetime';
+  readonly time: number;
+  readonly failures: number;
+}
+export interface GradedRunState extends RunStateCommon {
+  readonly model: 'graded';
+  readonly counts: readonly number[];
+  readonly demerits: number;
 }
 
 export type RunStatus = 'open' | 'closed';

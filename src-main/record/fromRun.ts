@@ -3,7 +3,7 @@
  * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
  * the software's identity. The quality estimate is the sequential one once the run is decided.
  */
-import { designPlan, limitRows, resolvePlan, decide, PlanParameterError, type PlanSpec } from '../engine/index.js';
+import { designPlan, limitRows, resolvePlan, decide, PlanParameterError, type AnyPlanSpec, type PlanSpec } from '../engine/index.js';
 import { estimateAfterStop } from '../engine/estimation/index.js';
 import { resultTotal } from '../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
@@ -44,9 +44,15 @@ function qualityUnit(spec: PlanSpec): string {
   return spec.model === 'passfail' ? 'fraction nonconforming' : 'nonconformities per item';
 }
 
+/** The plan of a pass/fail or count run; the other models' records are made elsewhere. */
+function linearSpec(spec: AnyPlanSpec): PlanSpec {
+  if (spec.model === 'passfail' || spec.model === 'count') return spec;
+  throw new Error(`the decision record of a ${spec.model} run is not made yet`);
+}
+
 function recordPlan(read: RunJournalRead): RecordPlan {
   const { plan } = read.replay.header;
-  const { spec } = plan;
+  const spec = linearSpec(plan.spec);
   const design = designPlan(spec, { curvePoints: 2 });
   const unit = qualityUnit(spec);
   const [symbol0, symbol1] = spec.model === 'passfail' ? ['p0', 'p1'] : ['lambda0', 'lambda1'];
@@ -114,7 +120,7 @@ function recordDecision(read: RunJournalRead): RecordDecision {
   if (close !== null) {
     return { state: closedState(close.rule, close.decision), rule: close.rule, itemsInspected: close.n, nonconformingFound: close.total, finalLogLikelihoodRatio: close.llr };
   }
-  const now = decide(replay.header.plan.spec, replay.n, replay.total);
+  const now = decide(linearSpec(replay.header.plan.spec), replay.n, replay.total);
   const reopened = replay.lastClose !== null;
   return {
     state: 'continue',
@@ -206,9 +212,9 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
     },
     plan: recordPlan(read),
     entries: recordEntries(read),
-    boundarySteps: boundarySteps(plan.spec, decision.itemsInspected),
+    boundarySteps: boundarySteps(linearSpec(plan.spec), decision.itemsInspected),
     decision,
-    qualityEstimate: recordQualityEstimate(plan.spec, decision, context.settings.confidenceLevel),
+    qualityEstimate: recordQualityEstimate(linearSpec(plan.spec), decision, context.settings.confidenceLevel),
     fingerprint: read.fingerprint,
     interim: decision.state === 'continue',
     approval: { inspectedBy: run.inspector, reviewedBy: null },

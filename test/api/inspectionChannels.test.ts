@@ -6,7 +6,7 @@ import type { InspectionRunView, InspectionStep } from '../../src-main/api/chann
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
-import { liveState, type PlanSpec } from '../../src-main/engine/index.js';
+import { liveState, type LiveState, type PlanSpec } from '../../src-main/engine/index.js';
 import { PlanRepository, SourceRepository } from '../../src-main/store/index.js';
 
 /** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, reference-values CV-02). */
@@ -42,7 +42,7 @@ describe('the inspection channels', () => {
     expect(view.live).toEqual(liveState(nistSpec, 0, 0));
     expect(view.entries).toEqual([]);
     // Earliest accept of the NIST example is at n = 24 (h1 / s = 0.939 / 0.0397 = 23.7, reference-values CV-02 [C]).
-    expect(view.live.itemsToEarliestAccept).toBe(24);
+    expect((view.live as LiveState).itemsToEarliestAccept).toBe(24);
     expect(view.frame.horizon).toBeGreaterThanOrEqual(24);
     expect(view.frame.limits[23]).toMatchObject({ n: 24, accept: 0 });
   });

@@ -1,6 +1,36 @@
+/**
+ * The Inspect place's channels. Shapes per plan model (the run's `plan.spec.model`):
+ *
+ * `inspection.record` `result`:
+ *   passfail 'pass' | 'fail'; count a whole number >= 0; measurement `{ value: number }`;
+ *   lifetime `{ time: number }` (a reading of accumulated test time, never below the last one) or
+ *   `{ failure: true, time?: number }` (time first, when given, then one failure);
+ *   graded `{ grade: string }` (one of the plan's class names).
+ *
+ * `state` (RunState, inspection/runTypes.ts): `{ decision, rule, llr, n, total }` and
+ *   passfail/count: no `model` field (total = nonconforming items / nonconformities);
+ *   measurement: `model: 'measurement', sum, mean` (total = sum);
+ *   lifetime: `model: 'lifetime', time, failures` (n = counted entries, total = failures);
+ *   graded: `model: 'graded', counts, demerits` (total = demerits).
+ *
+ * `live` (InspectionLive): the engine's `liveState` (passfail/count, no `model`), or
+ *   `{ model, ...measurementLiveState | lifetimeLiveState | gradedLiveState }`.
+ *
+ * `frame` (InspectionFrame): what the evidence chart draws the run against; `horizon`, `limits`,
+ *   `lnA`, `lnB`, `truncation` mean what they mean in the pass/fail frame:
+ *   passfail/count: EvidenceFrame, limits `{ n, accept, reject }` in nonconforming items/nonconformities;
+ *   measurement: limits `{ n, accept, reject }` of the running sum (plan unit) vs n, `rejectWhen`, `unit`;
+ *   lifetime: limits `{ failures, acceptTime, rejectTime }` (accumulated test time per failure count,
+ *     null where that line does not apply), horizon = last failure count drawn, `maxTime`,
+ *     `maxFailures`, `unit`, truncation always null;
+ *   graded: limits `{ n, accept, reject }` in demerits vs n, `demerits` per class.
+ *
+ * An entry's `after` is `{ n, total, llr }` (the chart point: n vs total), and for lifetime also
+ * `time` (the point is failures = total vs time).
+ */
 import { z } from 'zod';
-import type { LimitRow, LiveState } from '../../engine/index.js';
-import type { RunEntryView, RunState, RunSummary, RunView } from '../../inspection/index.js';
+import type { GradedLiveState, LifetimeLiveState, LimitRow, LiveState, MeasurementLiveState } from '../../engine/index.js';
+import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, type RunView } from '../../inspection/index.js';
 
 /** Run ids become file names: the same characters the store allows. */
 const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
@@ -31,7 +61,7 @@ export const inspectionChannels = {
     input: z.object({
       runId,
       itemId: optionalText(200),
-      result: z.union([z.literal('pass'), z.literal('fail'), z.number().int('A count is a whole number.').nonnegative('A count is 0 or more.')]),
+      result: itemResultSchema,
       category: optionalText(120),
       note: optionalText(2000),
       actor,
@@ -47,7 +77,7 @@ export const inspectionChannels = {
 
 /** A result with the statistics after it, for the evidence path; `after` is null for a voided entry. */
 export interface InspectionEntry extends RunEntryView {
-  readonly after: { readonly n: number; readonly total: number; readonly llr: number } | null;
+  readonly after: { readonly n: number; readonly total: number; readonly llr: number; /** lifetime only */ readonly time?: number } | null;
 }
 
 /**
@@ -56,6 +86,7 @@ export interface InspectionEntry extends RunEntryView {
  * lines in use.
  */
 export interface EvidenceFrame {
+  readonly model?: undefined;
   readonly horizon: number;
   readonly limits: LimitRow[];
   readonly lnA: number;
@@ -63,11 +94,60 @@ export interface EvidenceFrame {
   readonly truncation: number | null;
 }
 
+/** Measurement: the limits of the running sum against n, in the plan's unit (the truncation row holds its rule). */
+export interface MeasurementFrame {
+  readonly model: 'measurement';
+  readonly horizon: number;
+  readonly limits: Array<{ n: number; accept: number; reject: number }>;
+  /** The LLR limits in use (moved inward with the overshoot correction). */
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+  /** 'above': reject at or above `reject`, accept at or below `accept`; 'below': mirrored. */
+  readonly rejectWhen: 'above' | 'below';
+  readonly unit: string | null;
+}
+
+/** Lifetime: per failure count, the accumulated test time that accepts and the latest failure time that rejects. */
+export interface LifetimeFrame {
+  readonly model: 'lifetime';
+  /** The largest failure count drawn. */
+  readonly horizon: number;
+  readonly limits: Array<{ failures: number; acceptTime: number | null; rejectTime: number | null }>;
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: null;
+  readonly maxTime: number | null;
+  readonly maxFailures: number | null;
+  readonly unit: string | null;
+}
+
+/** Graded: the demerit limits against n (accept null while acceptance is impossible). */
+export interface GradedFrame {
+  readonly model: 'graded';
+  readonly horizon: number;
+  readonly limits: LimitRow[];
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+  /** Demerits per item of each class (the first class 0, the second 1). */
+  readonly demerits: Array<{ className: string; demerits: number }>;
+}
+
+export type InspectionFrame = EvidenceFrame | MeasurementFrame | LifetimeFrame | GradedFrame;
+
+/** The look-ahead of a run, from the model's live-state function. */
+export type InspectionLive =
+  | (LiveState & { readonly model?: undefined })
+  | (MeasurementLiveState & { readonly model: 'measurement' })
+  | (LifetimeLiveState & { readonly model: 'lifetime' })
+  | (GradedLiveState & { readonly model: 'graded' });
+
 /** A run as the Inspect place shows it. */
 export interface InspectionRunView extends Omit<RunView, 'entries'> {
   readonly entries: InspectionEntry[];
-  readonly live: LiveState;
-  readonly frame: EvidenceFrame;
+  readonly live: InspectionLive;
+  readonly frame: InspectionFrame;
 }
 
 /** The answer to an append (result, void, override): only what changed, so a long run stays cheap. */
@@ -78,8 +158,8 @@ export interface InspectionStep {
   readonly entry: InspectionEntry | null;
   readonly run: Pick<InspectionRunView['run'], 'status' | 'decision' | 'rule' | 'closedAt'>;
   readonly state: RunState;
-  readonly live: LiveState;
-  readonly frame: EvidenceFrame;
+  readonly live: InspectionLive;
+  readonly frame: InspectionFrame;
 }
 
 export interface InspectionChannelOutputs {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { designPlan, KlDivergences, PlanSpec, WaldBoundaries } from '../../engine/index.js';
+import type { AnyPlanDesign, AnyPlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
 import type { PlanVersion } from '../../store/plans.js';
 import type { SourceKind, SourcePart } from '../../store/sources.js';
 
@@ -12,10 +12,45 @@ const planOptions = {
   fit: z.enum(['wald', 'exact']).optional(),
 };
 
-/** The plan parameters as they cross a boundary (IPC, HTTP, files, CLI). */
+const risks = { alpha: finite, beta: finite };
+const truncation = z.number().int().nullable().optional();
+/** A unit for display only, e.g. "mm" or "unit-hours". */
+const unit = z.string().trim().max(40).optional();
+
+const passFailSpec = z.object({ model: z.literal('passfail'), p0: finite, p1: finite, ...planOptions });
+const countSpec = z.object({ model: z.literal('count'), lambda0: finite, lambda1: finite, ...planOptions });
+
+/** The linear-count models (pass/fail, count): the only ones `plan.limits` answers for. */
+export const linearPlanSpecSchema = z.discriminatedUnion('model', [passFailSpec, countSpec]);
+
+/**
+ * The plan parameters of every model as they cross a boundary (IPC, HTTP, files, CLI):
+ * - passfail `{p0, p1, alpha, beta, truncation?, fit?}`, count `{lambda0, lambda1, ...same}`;
+ * - measurement `{mu0, mu1, sigma, alpha, beta, truncation?, overshootCorrection?, unit?}`;
+ * - lifetime `{theta0, theta1, alpha, beta, maxTime?, maxFailures?, unit?}`;
+ * - graded `{classes: string[], p0: number[], p1: number[], alpha, beta, truncation?}`.
+ */
 export const planSpecSchema = z.discriminatedUnion('model', [
-  z.object({ model: z.literal('passfail'), p0: finite, p1: finite, ...planOptions }),
-  z.object({ model: z.literal('count'), lambda0: finite, lambda1: finite, ...planOptions }),
+  passFailSpec,
+  countSpec,
+  z.object({ model: z.literal('measurement'), mu0: finite, mu1: finite, sigma: finite, ...risks, truncation, overshootCorrection: z.boolean().optional(), unit }),
+  z.object({
+    model: z.literal('lifetime'),
+    theta0: finite,
+    theta1: finite,
+    ...risks,
+    maxTime: finite.nullable().optional(),
+    maxFailures: z.number().int().nullable().optional(),
+    unit,
+  }),
+  z.object({
+    model: z.literal('graded'),
+    classes: z.array(z.string().trim().min(1, 'A class needs a name.').max(60)).min(2, 'A graded plan has at least 2 classes.').max(10, 'A graded plan has at most 10 classes.'),
+    p0: z.array(finite).max(10),
+    p1: z.array(finite).max(10),
+    ...risks,
+    truncation,
+  }),
 ]);
 
 const planId = z.string().min(1).max(80);
@@ -26,12 +61,15 @@ export const maximumPlanFileLength = 100_000;
 
 /** Channels of the Plan place. */
 export const planChannels = {
-  /** Wald's limits and the evidence per item (KL both ways): cheap, asked on every keystroke. */
-  'plan.limits': { input: planSpecSchema },
+  /** Wald's limits and the evidence per item (KL both ways) of a pass/fail or count plan: cheap, asked on every keystroke. */
+  'plan.limits': { input: linearPlanSpecSchema },
   /**
    * The whole design of a plan: limits, Wald and exact risks and ASN, curves, the single sampling
    * plan, the table of acceptance/rejection numbers, the distribution of items inspected.
-   * `suggestTruncation` truncates where the engine suggests (the spec's truncation is then ignored).
+   * `suggestTruncation` truncates where the engine suggests (the spec's truncation is then ignored);
+   * pass/fail and count only, the other models are designed as given.
+   * The answer's `design` is discriminated by `model`: PlanDesign (passfail, count), MeasurementDesign,
+   * LifetimeDesign or GradedDesign (engine/models/*-design.ts).
    * `stream` + `ticket`: a request superseded by a newer ticket of the same stream before its turn
    * answers `{ superseded: true }` without computing.
    */
@@ -75,12 +113,12 @@ export const planChannels = {
   'plan.import': { input: z.object({ text: z.string().max(maximumPlanFileLength, 'A plan file is at most 100 kB.') }) },
 } as const;
 
-/** What `designPlan` computes, as it travels to the renderer. */
-export type PlanDesign = ReturnType<typeof designPlan>;
+/** What `designAnyPlan` computes, as it travels to the renderer: discriminated by `model`. */
+export type PlanDesign = AnyPlanDesign;
 
 export type DesignAnswer =
   | { superseded: true }
-  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: PlanSpec; design: PlanDesign };
+  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: AnyPlanSpec; design: PlanDesign };
 
 export interface SourceChoice {
   id: string;
@@ -104,5 +142,5 @@ export interface PlanChannelOutputs {
   'plan.versions': SavedPlan[];
   'plan.open': SavedPlan;
   'plan.export': { fileName: string; text: string };
-  'plan.import': { name: string; spec: PlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
+  'plan.import': { name: string; spec: AnyPlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
 }

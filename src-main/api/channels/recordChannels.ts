@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import type { PlanSpec } from '../../engine/index.js';
+import type { AnyPlanSpec } from '../../engine/index.js';
 import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
 import type { HistoryRow, RunHistory } from '../../record/runHistory.js';
-import type { EvidenceFrame, InspectionEntry } from './inspectionChannels.js';
+import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 
 /** Run ids become file names: the same characters the store allows. */
 const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
@@ -36,11 +36,12 @@ export const recordChannels = {
 export interface RecordRunView {
   readonly row: HistoryRow;
   readonly recordId: string;
-  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: PlanSpec };
+  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: AnyPlanSpec };
   readonly lotSize: number | null;
   readonly inspectors: string[];
   readonly entries: InspectionEntry[];
-  readonly frame: EvidenceFrame;
+  /** As in the Inspect place (see inspectionChannels.ts): per model. */
+  readonly frame: InspectionFrame;
   readonly decision: RecordDecision;
   readonly estimate: QualityEstimate | null;
   readonly interim: boolean;

@@ -1,18 +1,18 @@
-import { decide, limitRows, liveState, resolvePlan, type LiveState, type PlanSpec } from '../../engine/index.js';
+import type { AnyPlanSpec } from '../../engine/index.js';
 import {
+  ResultRefusedError,
   RunClosedError,
   RunNotWritableError,
   createRunService,
   resultProblem,
-  resultTotal,
   type RecordOutcome,
-  type RunEntryView,
   type RunView,
 } from '../../inspection/index.js';
 import { PlanRepository, SourceRepository } from '../../store/index.js';
-import type { EvidenceFrame, InspectionEntry, InspectionRunView, InspectionStep } from '../channels/inspectionChannels.js';
+import type { InspectionEntry, InspectionRunView, InspectionStep } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
+import { evidenceFrame, pointOf, runLive, withStatistics } from './inspectionFrames.js';
 
 type InspectionHandlers = Pick<
   ChannelHandlers,
@@ -25,13 +25,9 @@ export interface InspectionHandlerContext {
 
 /** What a handler needs to know of a run between requests: fixed at its start. */
 interface KnownRun {
-  readonly spec: PlanSpec;
+  readonly spec: AnyPlanSpec;
   readonly actor: string;
 }
-
-/** Items drawn beyond the furthest point the run can reach next, so the steps ahead stay in view. */
-const HORIZON_MARGIN = 1.25;
-const MINIMUM_HORIZON = 10;
 
 export function createInspectionHandlers(context: InspectionHandlerContext): InspectionHandlers {
   const service = createRunService({ dataDirectory: context.dataDirectory });
@@ -41,7 +37,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
 
   function remember(view: RunView): InspectionRunView {
     known.set(view.run.id, { spec: view.plan.spec, actor: view.run.inspector ?? 'inspector' });
-    const live = liveState(view.plan.spec, view.state.n, view.state.total);
+    const live = runLive(view.plan.spec, view.state);
     return { ...view, entries: withStatistics(view.plan.spec, view.entries), live, frame: evidenceFrame(view.plan.spec, live) };
   }
 
@@ -53,15 +49,15 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
   }
 
   /** The answer to an append; the run's header is read again only when the append changed its status. */
-  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: PlanSpec): Promise<InspectionStep> {
-    const live = liveState(spec, outcome.state.n, outcome.state.total);
+  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: AnyPlanSpec): Promise<InspectionStep> {
+    const live = runLive(spec, outcome.state);
     const statusChanged = outcome.closedWith !== null || kind === 'override';
     const { status, decision, rule, closedAt } = statusChanged
       ? (await service.openRun(runId)).run
       : { status: 'open' as const, decision: null, rule: null, closedAt: null };
     const taken = outcome.entry;
     const entry: InspectionEntry | null =
-      taken === null ? null : { ...taken, after: taken.voided ? null : { n: outcome.state.n, total: outcome.state.total, llr: outcome.state.llr } };
+      taken === null ? null : { ...taken, after: taken.voided ? null : pointOf(outcome.state) };
     return { seq: outcome.seq, kind, entry, run: { status, decision, rule, closedAt }, state: outcome.state, live, frame: evidenceFrame(spec, live) };
   }
 
@@ -120,6 +116,7 @@ async function translated<Value>(operation: () => Promise<Value>, runId: string)
       throw new ChannelFailure('conflict', 'The run has reached its decision: record a reason for entering more before the next entry.', 'runId');
     }
     if (error instanceof RunNotWritableError) throw new ChannelFailure('conflict', error.message, 'runId');
+    if (error instanceof ResultRefusedError) throw new ChannelFailure('invalid-parameter', `This run's plan is ${error.model}: ${error.message}.`, 'result');
     const systemCode = (error as NodeJS.ErrnoException).code;
     if (systemCode === 'ENOENT') throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
     if (error instanceof Error && error.name === 'Error' && systemCode === undefined) {
@@ -127,35 +124,4 @@ async function translated<Value>(operation: () => Promise<Value>, runId: string)
     }
     throw error;
   }
-}
-
-/** Each counted result with n, total and LLR after it: the points of the evidence path. */
-function withStatistics(spec: PlanSpec, entries: readonly RunEntryView[]): InspectionEntry[] {
-  let n = 0;
-  let total = 0;
-  return entries.map((entry) => {
-    if (entry.voided) return { ...entry, after: null };
-    n += 1;
-    total += resultTotal(entry.result);
-    return { ...entry, after: { n, total, llr: decide(spec, n, total).llr } };
-  });
-}
-
-/**
- * The acceptance and rejection numbers the chart draws, far enough ahead to show the earliest
- * accept and reject from here, never past the truncation.
- */
-function evidenceFrame(spec: PlanSpec, live: LiveState): EvidenceFrame {
-  const { lines, countWeight } = resolvePlan(spec);
-  const reach = live.n + Math.max(live.itemsToEarliestAccept ?? 0, live.itemsToEarliestReject ?? 0);
-  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * reach));
-  const horizon = lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, live.n));
-  return {
-    horizon,
-    limits: limitRows(lines, horizon),
-    // ln A and ln B of the lines in use (the fitted ones when the plan fits exact risks).
-    lnA: lines.h2 * countWeight,
-    lnB: -lines.h1 * countWeight,
-    truncation: lines.truncation,
-  };
 }

@@ -1,4 +1,4 @@
-import { designPlan, klDivergences, waldBoundaries, type PlanSpec } from '../../engine/index.js';
+import { checkAnyPlanSpec, designAnyPlan, klDivergences, waldBoundaries, type AnyPlanSpec } from '../../engine/index.js';
 import { PLAN_FORMAT, PlanRepository, planVersionSchema, type PlanVersion } from '../../store/plans.js';
 import { SourceRepository } from '../../store/sources.js';
 import type { DesignAnswer, PlanDesign, SavedPlan } from '../channels/planChannels.js';
@@ -23,11 +23,11 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
   const latest = new LatestTicket();
   const recentDesigns = new Map<string, PlanDesign>();
 
-  function designOnce(spec: PlanSpec, curvePoints: number | undefined): PlanDesign {
+  function designOnce(spec: AnyPlanSpec, curvePoints: number | undefined): PlanDesign {
     const key = JSON.stringify([spec, curvePoints ?? null]);
     const known = recentDesigns.get(key);
     if (known) return known;
-    const design = designPlan(spec, { curvePoints });
+    const design = designAnyPlan(spec, { curvePoints });
     recentDesigns.set(key, design);
     if (recentDesigns.size > designCacheSize) recentDesigns.delete(recentDesigns.keys().next().value as string);
     return design;
@@ -55,10 +55,13 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
       if (stream !== undefined && ticket !== undefined) {
         if (!(await latest.isStillNewest(stream, ticket))) return { superseded: true };
       }
-      if (!suggestTruncation) return { superseded: false, spec, design: designOnce(spec, curvePoints) };
+      // Only the linear-count designs suggest a truncation; the other models are designed as given.
+      if (!suggestTruncation || (spec.model !== 'passfail' && spec.model !== 'count')) {
+        return { superseded: false, spec, design: designOnce(spec, curvePoints) };
+      }
       // The suggestion is computed on the untruncated lines; the plan then stops there.
       const untruncated = designOnce({ ...spec, truncation: null }, curvePoints);
-      const truncated = { ...spec, truncation: untruncated.suggestedTruncation };
+      const truncated = { ...spec, truncation: 'suggestedTruncation' in untruncated ? untruncated.suggestedTruncation : null };
       return { superseded: false, spec: truncated, design: designOnce(truncated, curvePoints) };
     },
 
@@ -66,7 +69,7 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
       (await sources.list()).map((source) => ({ id: source.id, name: source.name, kind: source.kind, parts: source.parts })),
 
     'plan.save': async ({ id, name, source, part, characteristic, spec }) => {
-      waldBoundaries(spec); // refuses an invalid spec with the engine's own message before anything is written
+      checkAnyPlanSpec(spec); // refuses an invalid spec with the engine's own message before anything is written
       if (id !== undefined) await existingPlan(id);
       let sourceId: string | null = null;
       if (source !== null && 'id' in source) {
@@ -105,7 +108,7 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
 
     'plan.import': async ({ text }) => {
       const plan = parsePlanFile(text);
-      waldBoundaries(plan.spec); // a file can pass the schema and still hold a plan the engine refuses
+      checkAnyPlanSpec(plan.spec); // a file can pass the schema and still hold a plan the engine refuses
       const source = plan.sourceId === null ? undefined : await sources.get(plan.sourceId).catch(() => undefined);
       return {
         name: plan.name,

@@ -1,4 +1,4 @@
-import { limitRows, resolvePlan, type PlanSpec } from '../../engine/index.js';
+import { limitRows, resolvePlan, type AnyPlanSpec, type PlanSpec } from '../../engine/index.js';
 import { RunJournalContentError, resultTotal } from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/entriesCsv.js';
 import { decisionRecordFromRun, evidenceHorizon, recordContextFor } from '../../record/fromRun.js';
@@ -6,9 +6,10 @@ import type { DecisionRecordInput } from '../../record/recordInput.js';
 import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
 import { historyRow, runHistory } from '../../record/runHistory.js';
 import { RunJournalUnverifiedError, readRunJournal, requireVerified, type RunJournalRead } from '../../record/runJournalRead.js';
-import type { EvidenceFrame, InspectionEntry } from '../channels/inspectionChannels.js';
+import type { EvidenceFrame, InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
+import { evidenceFrame as runFrame, runLive, withStatistics } from './inspectionFrames.js';
 
 type RecordHandlers = Pick<ChannelHandlers, 'record.history' | 'record.open' | 'record.pdf' | 'record.csv'>;
 
@@ -54,8 +55,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
         plan: { id: plan.id, name: plan.name, version: plan.version, spec: plan.spec },
         lotSize: run.lotSize,
         inspectors: input.subject.inspectors,
-        entries: evidenceEntries(read, plan.spec),
-        frame: evidenceFrame(plan.spec, input.decision.itemsInspected),
+        ...recordEvidence(read, plan.spec, input.decision.itemsInspected),
         decision: input.decision,
         estimate: input.qualityEstimate,
         interim: input.interim,
@@ -74,6 +74,14 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
       return { fileName: `${fileStem(input, 'entries')}.csv`, interim: input.interim, text: entriesToCsv(input.entries, input.plan.model) };
     },
   };
+}
+
+/** The evidence path and the frame it is drawn in: for the models with their own design path, as the Inspect place draws them. */
+function recordEvidence(read: RunJournalRead, spec: AnyPlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
+  if (spec.model === 'passfail' || spec.model === 'count') {
+    return { entries: evidenceEntries(read, spec), frame: evidenceFrame(spec, itemsInspected) };
+  }
+  return { entries: withStatistics(spec, read.replay.results), frame: runFrame(spec, runLive(spec, read.replay.evidence.state())) };
 }
 
 /** Each result with n, total and LLR after it (null for a voided one): the points of the evidence path. */

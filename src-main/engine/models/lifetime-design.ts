@@ -17,6 +17,7 @@ import {
 } from './lifetime.js';
 import type { LifetimeBoundaries, LifetimePlan } from './lifetime.js';
 import { fixedDurationPlan } from './lifetime-fixed-duration.js';
+import { lifetimeLimitRows } from './extended-limit-rows.js';
 import type { FixedDurationPlan } from './lifetime-fixed-duration.js';
 
 export interface LifetimeCurvePoint {
@@ -92,18 +93,7 @@ export function designLifetimePlan(spec: LifetimeSpec, options: { curvePoints?: 
   const single = fixedDurationPlan(spec.theta0, spec.theta1, spec.alpha, spec.beta);
   const boundaries = lifetimeBoundaries(plan);
   const rows = plan.maxFailures ?? Math.max(boundaries.firstRejectFailures, 3 * (single.acceptFailures + 1));
-  const limits = [];
-  for (let r = 0; r <= rows; r++) {
-    const accept = acceptTime(plan, r);
-    const reject = rejectTime(plan, r);
-    const rejectAll = plan.maxFailures !== null && r >= plan.maxFailures;
-    limits.push({
-      failures: r,
-      acceptTime: rejectAll || (plan.maxTime !== null && accept > plan.maxTime) ? null : accept,
-      // At maxFailures every undecided test rejects: it can still be running until the previous accept time.
-      rejectTime: rejectAll ? Math.min(acceptTime(plan, r - 1), plan.maxTime ?? Number.POSITIVE_INFINITY) : reject > 0 && r > 0 ? reject : null,
-    });
-  }
+  const limits = lifetimeLimitRows(plan, rows);
   return {
     model: 'lifetime',
     boundaries,

@@ -8,7 +8,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'nod
 import os from 'node:os';
 import path from 'node:path';
 import type { PlanSpec } from '../../../src-main/engine/index.js';
-import { RunReplay, runState } from '../../../src-main/inspection/index.js';
+import { RunReplay } from '../../../src-main/inspection/index.js';
 import {
   GENESIS_HASH,
   JOURNAL_FORMAT,
@@ -88,7 +88,7 @@ export const cases = [
     run: (journalPath) => {
       const analysis = analyseJournal(readFileSync(journalPath));
       const replay = RunReplay.fromEntries(analysis.entries);
-      const state = runState(replay.header.plan.spec, replay.n, replay.total);
+      const state = replay.evidence.state();
       if (analysis.problems.length > 0 || state.n !== RELOAD_RESULTS || state.decision !== 'continue') {
         throw new Error('the bench journal did not reload intact in the continue region');
       }

@@ -1,0 +1,141 @@
+/**
+ * What the Inspect place draws a run with, per model: the live look-ahead from the model's
+ * live-state function, the evidence frame (limits in the model's natural units) and each entry's
+ * point on the evidence path. Shapes are described at the top of channels/inspectionChannels.ts.
+ */
+import {
+  gradedLimitRows,
+  gradedLiveState,
+  gradedPlan,
+  lifetimeBoundaries,
+  lifetimeLimitRows,
+  lifetimeLiveState,
+  lifetimePlan,
+  limitRows,
+  liveState,
+  measurementLimitRows,
+  measurementLiveState,
+  measurementPlan,
+  resolvePlan,
+  gradedBoundaries,
+  type AnyPlanSpec,
+  type LiveState,
+} from '../../engine/index.js';
+import { RunEvidence, type RunEntryView, type RunState } from '../../inspection/index.js';
+import type { InspectionEntry, InspectionFrame, InspectionLive } from '../channels/inspectionChannels.js';
+
+/** Items drawn beyond the furthest point the run can reach next, so the steps ahead stay in view. */
+const HORIZON_MARGIN = 1.25;
+const MINIMUM_HORIZON = 10;
+/** Failure counts drawn at least, for a lifetime chart. */
+const MINIMUM_FAILURES = 3;
+
+/** A spec whose truncation the run has gone past (entries after an override) is looked ahead without it. */
+function withoutPassedTruncation<Spec extends { truncation?: number | null }>(spec: Spec, n: number): Spec {
+  return spec.truncation != null && n > spec.truncation ? { ...spec, truncation: null } : spec;
+}
+
+/** The look-ahead of a run in the state given, from the model's live-state function. */
+export function runLive(spec: AnyPlanSpec, state: RunState): InspectionLive {
+  if (spec.model === 'measurement' && state.model === 'measurement') {
+    return { model: 'measurement', ...measurementLiveState(withoutPassedTruncation(spec, state.n), state.n, state.sum) };
+  }
+  if (spec.model === 'lifetime' && state.model === 'lifetime') {
+    return { model: 'lifetime', ...lifetimeLiveState(spec, state.time, state.failures) };
+  }
+  if (spec.model === 'graded' && state.model === 'graded') {
+    return { model: 'graded', ...gradedLiveState(withoutPassedTruncation(spec, state.n), state.counts) };
+  }
+  if (spec.model === 'passfail' || spec.model === 'count') return liveState(spec, state.n, state.total);
+  throw new Error(`the run's state does not match its ${spec.model} plan`);
+}
+
+/** Items to draw: far enough to show where the run is expected to end, never past the truncation. */
+function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
+  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * (n + Math.max(1, expectedRemaining))));
+  return truncation === null ? ahead : Math.min(truncation, Math.max(ahead, n));
+}
+
+/**
+ * The limits the evidence chart draws, far enough ahead to show the earliest accept and reject
+ * (pass/fail, count) or the expected end of the run (other models), never past the truncation.
+ */
+export function evidenceFrame(spec: AnyPlanSpec, live: InspectionLive): InspectionFrame {
+  if (spec.model === 'measurement' && live.model === 'measurement') {
+    const plan = measurementPlan(spec);
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
+    return {
+      model: 'measurement',
+      horizon,
+      limits: measurementLimitRows(plan, horizon),
+      lnA: plan.rejectLimit,
+      lnB: plan.acceptLimit,
+      truncation: plan.truncation,
+      rejectWhen: plan.shift > 0 ? 'above' : 'below',
+      unit: spec.unit ?? null,
+    };
+  }
+  if (spec.model === 'lifetime' && live.model === 'lifetime') {
+    const plan = lifetimePlan(spec);
+    const reach = live.failures + Math.max(1, live.failuresToReject ?? 0);
+    const ahead = Math.max(MINIMUM_FAILURES, lifetimeBoundaries(plan).firstRejectFailures, Math.ceil(HORIZON_MARGIN * reach));
+    const horizon = plan.maxFailures === null ? ahead : Math.min(plan.maxFailures, Math.max(ahead, live.failures));
+    return {
+      model: 'lifetime',
+      horizon,
+      limits: lifetimeLimitRows(plan, horizon),
+      lnA: plan.lnA,
+      lnB: plan.lnB,
+      truncation: null,
+      maxTime: plan.maxTime,
+      maxFailures: plan.maxFailures,
+      unit: spec.unit ?? null,
+    };
+  }
+  if (spec.model === 'graded' && live.model === 'graded') {
+    const plan = gradedPlan(spec);
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
+    return {
+      model: 'graded',
+      horizon,
+      limits: gradedLimitRows(plan, horizon),
+      lnA: plan.lnA,
+      lnB: plan.lnB,
+      truncation: plan.truncation,
+      demerits: gradedBoundaries(plan).demerits,
+    };
+  }
+  if ((spec.model === 'passfail' || spec.model === 'count') && live.model === undefined) return linearFrame(spec, live);
+  throw new Error(`the run's look-ahead does not match its ${spec.model} plan`);
+}
+
+function linearFrame(spec: Parameters<typeof resolvePlan>[0], live: LiveState): InspectionFrame {
+  const { lines, countWeight } = resolvePlan(spec);
+  const reach = live.n + Math.max(live.itemsToEarliestAccept ?? 0, live.itemsToEarliestReject ?? 0);
+  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * reach));
+  const horizon = lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, live.n));
+  return {
+    horizon,
+    limits: limitRows(lines, horizon),
+    // ln A and ln B of the lines in use (the fitted ones when the plan fits exact risks).
+    lnA: lines.h2 * countWeight,
+    lnB: -lines.h1 * countWeight,
+    truncation: lines.truncation,
+  };
+}
+
+/** The point of the evidence path after a state: n against total, and for lifetime the test time. */
+export function pointOf(state: RunState): NonNullable<InspectionEntry['after']> {
+  const point = { n: state.n, total: state.total, llr: state.llr };
+  return state.model === 'lifetime' ? { ...point, time: state.time } : point;
+}
+
+/** Each counted result with the statistics after it: the points of the evidence path. */
+export function withStatistics(spec: AnyPlanSpec, entries: readonly RunEntryView[]): InspectionEntry[] {
+  const evidence = new RunEvidence(spec);
+  return entries.map((entry) => {
+    if (entry.voided) return { ...entry, after: null };
+    evidence.add(entry.result);
+    return { ...entry, after: pointOf(evidence.state()) };
+  });
+}

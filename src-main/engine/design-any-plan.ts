@@ -1,0 +1,60 @@
+/**
+ * One entry point for designing and checking a plan of any model: the linear-count models
+ * (pass/fail, count) go through `designPlan`, the others through their own design path. Every
+ * design carries its `model`, so callers can tell the shapes apart.
+ */
+import { designPlan } from './design-plan.js';
+import { gradedPlan } from './models/graded.js';
+import { designGradedPlan } from './models/graded-design.js';
+import type { GradedDesign } from './models/graded-design.js';
+import { lifetimePlan } from './models/lifetime.js';
+import { designLifetimePlan } from './models/lifetime-design.js';
+import type { LifetimeDesign } from './models/lifetime-design.js';
+import { measurementPlan } from './models/measurement.js';
+import { designMeasurementPlan } from './models/measurement-design.js';
+import type { MeasurementDesign } from './models/measurement-design.js';
+import type { PlanDesign } from './plan-design-types.js';
+import type { AnyPlanSpec, ExtendedPlanSpec } from './spec.js';
+import { waldBoundaries } from './wald-boundaries.js';
+
+/** The design of a plan of any model, discriminated by `model`. */
+export type AnyPlanDesign = PlanDesign | MeasurementDesign | LifetimeDesign | GradedDesign;
+
+/** True for the models with their own design path (measurement, lifetime, graded). */
+export function isExtendedPlanSpec(spec: AnyPlanSpec): spec is ExtendedPlanSpec {
+  return spec.model === 'measurement' || spec.model === 'lifetime' || spec.model === 'graded';
+}
+
+/**
+ * Designs a plan of any model.
+ *
+ * Method: dispatch on `model` to designPlan, designMeasurementPlan, designLifetimePlan or
+ * designGradedPlan; each keeps its own Method and References.
+ * References: see the model's design function.
+ *
+ * @throws PlanParameterError for an invalid spec or curvePoints.
+ */
+export function designAnyPlan(spec: AnyPlanSpec, options: { curvePoints?: number } = {}): AnyPlanDesign {
+  switch (spec.model) {
+    case 'measurement':
+      return designMeasurementPlan(spec, options);
+    case 'lifetime':
+      return designLifetimePlan(spec, options);
+    case 'graded':
+      return designGradedPlan(spec, options);
+    default:
+      return designPlan(spec, options);
+  }
+}
+
+/**
+ * Checks a spec of any model with its factory, without designing it: cheap, for saving and importing.
+ *
+ * @throws PlanParameterError naming the parameter, its value and what is allowed.
+ */
+export function checkAnyPlanSpec(spec: AnyPlanSpec): void {
+  if (spec.model === 'measurement') measurementPlan(spec);
+  else if (spec.model === 'lifetime') lifetimePlan(spec);
+  else if (spec.model === 'graded') gradedPlan(spec);
+  else waldBoundaries(spec);
+}
