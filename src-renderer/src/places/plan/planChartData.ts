@@ -3,10 +3,21 @@
  * (percent, items). Only rearranging and scaling: every value comes from the engine.
  */
 import type uPlot from 'uplot';
-import type { PlanDesign } from '../../../../src-main/api/channels/planChannels';
+import type { LinearDesign as PlanDesign } from './designKinds';
 import type { QualityScale } from './qualityScale';
 
-const none: uPlot.AlignedData = [[]];
+/** One figure of the Plan place: its options and columns for the chart wrapper. */
+export interface PlanChart {
+  id: string;
+  title: string;
+  options: Omit<uPlot.Options, 'width' | 'height'>;
+  data: uPlot.AlignedData;
+  summary: string;
+  /** Takes a whole row of the grid. */
+  wide?: boolean;
+}
+
+export const none: uPlot.AlignedData = [[]];
 
 /** OC curves in percent accepted, with the two design points (p0, 1 - alpha) and (p1, beta) as markers. */
 export function ocColumns(design: PlanDesign | null, scale: QualityScale): uPlot.AlignedData {
@@ -40,6 +51,18 @@ export function asnColumns(design: PlanDesign | null, scale: QualityScale): uPlo
   const single = design.single;
   const reference = design.curve.map(() => (single ? single.n : null));
   return [x, wald, exact, reference];
+}
+
+/**
+ * Curves over a quality axis with design points merged in: x ascending, each curve null where only
+ * a design point sits, the marks null elsewhere.
+ */
+export function curvesWithMarks(thetas: readonly number[], curves: readonly (readonly (number | null)[])[], marks: readonly [number, number][]): uPlot.AlignedData {
+  const marked = new Map(marks);
+  const index = new Map(thetas.map((theta, i) => [theta, i]));
+  const xs = [...new Set([...thetas, ...marked.keys()])].sort((a, b) => a - b);
+  const columns = curves.map((curve) => xs.map((theta) => (index.has(theta) ? curve[index.get(theta)!] : null)));
+  return [Float64Array.from(xs), ...columns, xs.map((theta) => marked.get(theta) ?? null)];
 }
 
 /** Acceptance and rejection numbers per item count, and Wald's straight lines they round. */

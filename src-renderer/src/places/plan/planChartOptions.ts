@@ -6,19 +6,28 @@ import uPlot from 'uplot';
 import { readout, titledAxis } from '../../charts/axes';
 import type { QualityScale } from './qualityScale';
 
-type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
+export type ChartOptions = Omit<uPlot.Options, 'width' | 'height'>;
 
-const wald = { stroke: 'var(--chart-wald)', width: 2, dash: [7, 5], points: { show: false } };
-const exact = { stroke: 'var(--chart-exact)', width: 2, points: { show: false } };
-const steps = uPlot.paths.stepped!({ align: 1 });
+export const wald = { stroke: 'var(--chart-wald)', width: 2, dash: [7, 5], points: { show: false } };
+export const exact = { stroke: 'var(--chart-exact)', width: 2, points: { show: false } };
+export const steps = uPlot.paths.stepped!({ align: 1 });
 const noLine = () => null;
+
+/** The two design points, ringed markers without a line. */
+export const designPointSeries: uPlot.Series = {
+  label: 'Design points',
+  stroke: 'var(--chart-point)',
+  paths: noLine,
+  points: { show: true, size: 10, width: 2, stroke: 'var(--chart-point)', fill: 'var(--panel)' },
+  value: readout(1, 1, ' %'),
+};
 
 function qualityAxis(scale: QualityScale): uPlot.Series {
   const digits = scale.factor === 1 ? 3 : 2;
   return { label: scale.short === '%' ? 'Quality, %' : `Quality, ${scale.short}`, value: readout(digits) };
 }
 
-const base = (x: uPlot.Series, xTitle: string, yTitle: string, series: uPlot.Series[], extra: Partial<ChartOptions> = {}): ChartOptions => ({
+export const base = (x: uPlot.Series, xTitle: string, yTitle: string, series: uPlot.Series[], extra: Partial<ChartOptions> = {}): ChartOptions => ({
   series: [x, ...series],
   axes: [titledAxis(xTitle), titledAxis(yTitle, { size: 52 })],
   legend: { live: true },
@@ -35,13 +44,7 @@ export function ocOptions(scale: QualityScale): ChartOptions {
     [
       { label: 'Wald', ...wald, spanGaps: true, value: readout(2, 1, ' %') },
       { label: 'Exact', ...exact, spanGaps: true, value: readout(2, 1, ' %') },
-      {
-        label: 'Design points',
-        stroke: 'var(--chart-point)',
-        paths: noLine,
-        points: { show: true, size: 10, width: 2, stroke: 'var(--chart-point)', fill: 'var(--panel)' },
-        value: readout(1, 1, ' %'),
-      },
+      designPointSeries,
     ],
     { scales: { y: { range: [0, 100] } } },
   );

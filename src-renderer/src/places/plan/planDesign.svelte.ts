@@ -4,7 +4,7 @@
  * answer is ever shown.
  */
 import type { PlanDesign } from '../../../../src-main/api/channels/planChannels';
-import type { PlanSpec } from '../../../../src-main/engine/index';
+import type { AnyPlanSpec } from '../../../../src-main/engine/index';
 import { request } from '../../lib/channelClient';
 import { latestOnly } from '../../lib/latestOnly';
 import type { DraftReading } from './planDraft.svelte';
@@ -15,14 +15,24 @@ export interface DesignProblem {
   field?: string;
 }
 
-type Request = { spec: PlanSpec; suggestTruncation: boolean };
+/**
+ * Points on the OC and ASN curves. A graded plan's exact recursion runs once per point and takes
+ * seconds at 81, so its curves are drawn with fewer points (still smooth over its family).
+ */
+function curvePointsFor(spec: AnyPlanSpec): number {
+  return spec.model === 'graded' ? 31 : 81;
+}
+
+type Request = { spec: AnyPlanSpec; suggestTruncation: boolean };
 
 export class PlanDesignState {
   /** The newest design, for `spec`; null while the inputs do not make a plan. */
   design = $state.raw<PlanDesign | null>(null);
   /** The spec the design belongs to (truncation resolved when suggested). */
-  spec = $state.raw<PlanSpec | null>(null);
+  spec = $state.raw<AnyPlanSpec | null>(null);
   problem = $state.raw<DesignProblem | null>(null);
+  /** The problem was found in the form (not by the engine): gone as soon as the form reads as a plan. */
+  private problemFromForm = false;
   /** True between a change of the inputs and the answer for it. */
   pending = $state(false);
 
@@ -36,7 +46,7 @@ export class PlanDesignState {
       result: await request('plan.design', {
         spec: wanted.spec,
         suggestTruncation: wanted.suggestTruncation,
-        curvePoints: 81,
+        curvePoints: curvePointsFor(wanted.spec),
         stream: this.stream,
         ticket: ++this.ticket,
       }),
@@ -66,8 +76,11 @@ export class PlanDesignState {
       this.design = null;
       this.spec = null;
       this.problem = { message: reading.message, field: reading.field };
+      this.problemFromForm = true;
       return;
     }
+    if (this.problemFromForm) this.problem = null;
+    this.problemFromForm = false;
     this.pending = true;
     this.ask({ spec: reading.spec, suggestTruncation: reading.suggestTruncation, generation: this.generation });
   }

@@ -3,7 +3,7 @@
  * the form came from and its versions. Every change goes through the plan channels.
  */
 import type { SavedPlan, SourceChoice } from '../../../../src-main/api/channels/planChannels';
-import type { PlanSpec } from '../../../../src-main/engine/index';
+import type { AnyPlanSpec } from '../../../../src-main/engine/index';
 import { request } from '../../lib/channelClient';
 
 export type SourceKind = SourceChoice['kind'];
@@ -31,7 +31,7 @@ export class PlanLibrary {
     source: SourceTarget;
     part?: string | null;
     characteristic?: string | null;
-    spec: PlanSpec;
+    spec: AnyPlanSpec;
     asNew: boolean;
   }): Promise<SavedPlan | null> {
     const id = input.asNew ? undefined : this.current?.id;
@@ -73,16 +73,19 @@ export class PlanLibrary {
 }
 
 /** Whether two specs describe the same plan (the form against a saved version). */
-export function sameSpec(a: PlanSpec | null, b: PlanSpec | null): boolean {
+export function sameSpec(a: AnyPlanSpec | null, b: AnyPlanSpec | null): boolean {
   if (a === null || b === null) return a === b;
-  const key = (spec: PlanSpec) =>
-    JSON.stringify([
-      spec.model,
-      spec.model === 'passfail' ? [spec.p0, spec.p1] : [spec.lambda0, spec.lambda1],
-      spec.alpha,
-      spec.beta,
-      spec.truncation ?? null,
-      spec.fit ?? 'wald',
-    ]);
+  // Defaults written out, so a saved version and the form compare equal whether or not they spell them.
+  const key = (spec: AnyPlanSpec) => {
+    const filled: Record<string, unknown> = { ...spec };
+    filled.truncation ??= null;
+    if (spec.model === 'passfail' || spec.model === 'count') filled.fit ??= 'wald';
+    if (spec.model === 'measurement') filled.overshootCorrection ??= false;
+    if (spec.model === 'lifetime') {
+      filled.maxTime ??= null;
+      filled.maxFailures ??= null;
+    }
+    return JSON.stringify(Object.keys(filled).sort().map((name) => [name, filled[name]]));
+  };
   return key(a) === key(b);
 }

@@ -2,9 +2,9 @@
  * How quality is written for each data model: pass/fail as percent nonconforming, counts as
  * nonconformities per unit or per 100 units. The engine always takes fractions and rates per unit.
  */
-import type { PlanSpec } from '../../../../src-main/engine/index';
+import type { AnyPlanSpec } from '../../../../src-main/engine/index';
 
-export type ModelName = PlanSpec['model'];
+export type ModelName = AnyPlanSpec['model'];
 export type CountUnit = 'perUnit' | 'per100';
 
 export interface QualityScale {
@@ -23,6 +23,10 @@ export interface QualityScale {
 export function qualityScale(model: ModelName, countUnit: CountUnit): QualityScale {
   if (model === 'passfail') {
     return { unit: '% nonconforming', short: '%', factor: 100, axisTitle: 'Quality (% nonconforming)', symbols: ['p0', 'p1'] };
+  }
+  if (model !== 'count') {
+    // Measurements, times and grades are written in their own units by their own inputs.
+    return { unit: '', short: '', factor: 1, axisTitle: 'Quality', symbols: ['H0', 'H1'] };
   }
   if (countUnit === 'per100') {
     return {
