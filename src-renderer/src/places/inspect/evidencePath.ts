@@ -4,7 +4,7 @@
  * the path: the statistics leave them out.
  */
 import type uPlot from 'uplot';
-import type { EvidenceFrame, InspectionEntry } from '../../../../src-main/api/channels/inspectionChannels';
+import type { InspectionEntry, InspectionFrame, LifetimeFrame } from '../../../../src-main/api/channels/inspectionChannels';
 
 export interface EvidenceColumns {
   /** x, acceptance number, rejection number, cumulative count of the run. */
@@ -13,7 +13,23 @@ export interface EvidenceColumns {
   readonly llr: uPlot.AlignedData;
 }
 
-export function evidenceColumns(frame: EvidenceFrame, entries: readonly InspectionEntry[]): EvidenceColumns {
+/**
+ * Measurement sums rise with n × (μ0 + μ1)/2 and both lines with them: less that midline, the
+ * limits and the run stay apart at any scale. The midpoint is where the two lines meet (their mean).
+ */
+function fromMidline(limits: readonly { n: number; accept: number; reject: number }[], columns: (number | null)[][]): void {
+  const first = limits[0];
+  if (first === undefined) return;
+  const midpoint = (first.accept + first.reject) / (2 * first.n);
+  for (const column of columns) {
+    for (let n = 0; n < column.length; n++) if (column[n] !== null) column[n] = (column[n] as number) - n * midpoint;
+  }
+}
+
+/** Frames whose limits are drawn against the entries counted (all but time-to-failure). */
+type CountedFrame = Exclude<InspectionFrame, LifetimeFrame>;
+
+export function evidenceColumns(frame: CountedFrame, entries: readonly InspectionEntry[]): EvidenceColumns {
   const counted = entries.filter((entry) => entry.after !== null);
   const length = Math.max(frame.horizon, counted.length) + 1;
   const x = new Float64Array(length);
@@ -35,5 +51,32 @@ export function evidenceColumns(frame: EvidenceFrame, entries: readonly Inspecti
     total[after.n] = after.total;
     llr[after.n] = after.llr;
   }
+  if (frame.model === 'measurement') fromMidline(frame.limits, [accept, reject, total]);
   return { counts: [x, accept, reject, total], llr: [x, lnB, lnA, llr] };
+}
+
+/**
+ * A time-to-failure run in the (test time, failures) plane: x is accumulated test time, the
+ * accept and reject lines join their points per failure count, and the run climbs one failure at
+ * each failure's time. The LLR is drawn against the entries counted, as for the other models.
+ */
+export function lifetimeColumns(frame: LifetimeFrame, entries: readonly InspectionEntry[]): EvidenceColumns {
+  const counted = entries.filter((entry) => entry.after !== null).map((entry) => entry.after as NonNullable<InspectionEntry['after']>);
+  const path = new Map<number, number>([[0, 0]]);
+  for (const after of counted) path.set(after.time ?? 0, after.total);
+  const acceptAt = new Map<number, number>();
+  const rejectAt = new Map<number, number>();
+  for (const row of frame.limits) {
+    if (row.acceptTime !== null) acceptAt.set(row.acceptTime, row.failures);
+    if (row.rejectTime !== null && row.rejectTime >= 0) rejectAt.set(row.rejectTime, row.failures);
+  }
+  const times = [...new Set([...path.keys(), ...acceptAt.keys(), ...rejectAt.keys()])].sort((a, b) => a - b);
+  const at = (map: Map<number, number>) => times.map((time) => map.get(time) ?? null);
+  const length = counted.length + 1;
+  const x = Float64Array.from({ length }, (_, n) => n);
+  const llr = [0, ...counted.map((after) => after.llr)];
+  return {
+    counts: [Float64Array.from(times), at(acceptAt), at(rejectAt), at(path)],
+    llr: [x, new Float64Array(length).fill(frame.lnB), new Float64Array(length).fill(frame.lnA), llr],
+  };
 }

@@ -6,10 +6,11 @@
  */
 import { request } from '../../lib/channelClient';
 import type { InspectionEntry, InspectionRunView, InspectionStep } from '../../../../src-main/api/channels/inspectionChannels';
-import type { RunSummary } from '../../../../src-main/inspection/runTypes';
+import type { ItemResult, RunSummary } from '../../../../src-main/inspection/runTypes';
 import type { ChannelResult } from '../../../../src-main/api/result';
 
-export type EntryResult = 'pass' | 'fail' | number;
+/** One result as keyed, per model (see inspectionChannels.ts). */
+export type EntryResult = ItemResult;
 
 /** A result keyed but not yet confirmed by the main side, or refused by it. */
 export interface PendingEntry {
@@ -32,11 +33,14 @@ class EntryDraft {
   category = $state('');
   note = $state('');
   count = $state('');
+  /** A measured value (measurement plans) or an accumulated test time reading (time-to-failure plans). */
+  reading = $state('');
 
   clearAfterEntry(result: EntryResult): void {
     this.itemId = '';
     this.scanEnded = false;
     this.count = '';
+    this.reading = '';
     if (result !== 'pass') {
       this.category = '';
       this.note = '';
@@ -49,6 +53,11 @@ class EntryDraft {
     if (this.category === '' && entry.category !== null) this.category = entry.category;
     if (this.note === '' && entry.note !== null) this.note = entry.note;
     if (this.count === '' && typeof entry.result === 'number') this.count = String(entry.result);
+    const result = entry.result;
+    if (this.reading === '' && typeof result === 'object') {
+      if ('value' in result) this.reading = String(result.value);
+      else if ('time' in result && result.time !== undefined) this.reading = String(result.time);
+    }
   }
 }
 
