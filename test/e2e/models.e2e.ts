@@ -50,11 +50,12 @@ async function expectBannerAsRunView(page: Page, request: APIRequestContext, hos
   await expect(page.getByTestId('state-heading')).toHaveText(decision === 'accept' ? 'Accept the lot' : 'Reject the lot');
 }
 
-/** A screenshot of the whole place: the app scrolls inside its own frame, so the window is made tall enough for it. */
+/** A screenshot of the Plan place whole (it scrolls inside its own frame, so the window is made tall enough), or of a run as it is. */
 async function shoot(page: Page, name: string): Promise<void> {
-  await page.setViewportSize({ width: 1280, height: 1900 });
+  const plan = name.endsWith('-plan');
+  if (plan) await page.setViewportSize({ width: 1280, height: 1900 });
   await page.screenshot({ path: `test/artifacts/models-${name}.png` });
-  await page.setViewportSize({ width: 1280, height: 800 });
+  if (plan) await page.setViewportSize({ width: 1280, height: 800 });
 }
 
 async function expectChartsDrawn(page: Page): Promise<void> {

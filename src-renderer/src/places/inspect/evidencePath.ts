@@ -15,12 +15,13 @@ export interface EvidenceColumns {
 
 /**
  * Measurement sums rise with n × (μ0 + μ1)/2 and both lines with them: less that midline, the
- * limits and the run stay apart at any scale. The midpoint is where the two lines meet (their mean).
+ * limits and the run stay apart at any scale. The midpoint is the lines' common slope, read off
+ * the first two rows (the intercepts differ, so one row alone does not give it).
  */
 function fromMidline(limits: readonly { n: number; accept: number; reject: number }[], columns: (number | null)[][]): void {
-  const first = limits[0];
-  if (first === undefined) return;
-  const midpoint = (first.accept + first.reject) / (2 * first.n);
+  const [first, second] = limits.filter((row) => row.accept !== row.reject); // a truncation row holds its rule, not the lines
+  if (first === undefined || second === undefined) return;
+  const midpoint = (second.reject - first.reject) / (second.n - first.n);
   for (const column of columns) {
     for (let n = 0; n < column.length; n++) if (column[n] !== null) column[n] = (column[n] as number) - n * midpoint;
   }

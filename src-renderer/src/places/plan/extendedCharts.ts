@@ -78,7 +78,7 @@ function lifetimeOptions(): ChartOptions[] {
       { label: 'Exact', ...exact, value: readout(0) },
       { label: 'Fixed-duration test', ...reference, value: readout(0) },
     ], fromZero),
-    base({ label: 'Failures', value: readout(0) }, 'Failures so far', 'Accumulated test time (hours)', [
+    base({ label: 'Failures', value: readout(0) }, 'Failures so far', 'Test time (hours)', [
       { label: 'Accept once the time reaches', ...acceptLine, paths: steps, value: readout(1) },
       { label: 'Reject if a failure comes by', ...rejectLine, paths: steps, value: readout(1) },
     ], fromZero),
