@@ -121,6 +121,7 @@ export const modelPlanFlags = {
   'max-time': flag.positive(),
   'max-failures': flag.integer(1),
   classes: classNamesFlag,
+  unit: flag.text('a unit, e.g. mm or unit-hours'),
 };
 
 export const modelPlanFlagsUsage = [
@@ -130,15 +131,21 @@ export const modelPlanFlagsUsage = [
   '     --theta0 T --theta1 T [--max-time T] [--max-failures R]   (theta1 < theta0, MTBF in your time unit)',
   '  --model graded             items graded into classes:',
   '     --classes a,b,c --p0 P,P,P --p1 P,P,P   (each list sums to 1; the first class is the reference)',
+  '  --unit TEXT                measurement and lifetime: the unit of the values or test time, for display',
 ].join('\n');
 
 const OWN_FLAGS: Record<string, readonly string[]> = {
   passfail: ['p0', 'p1'],
   count: ['lambda0', 'lambda1'],
-  measurement: ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'truncate'],
-  lifetime: ['theta0', 'theta1', 'max-time', 'max-failures'],
+  measurement: ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'truncate', 'unit'],
+  lifetime: ['theta0', 'theta1', 'max-time', 'max-failures', 'unit'],
   graded: ['classes', 'p0', 'p1', 'truncate'],
 };
+
+/** `{ unit }` when --unit was given, else nothing (the spec then has no unit key). */
+function unitOf(values: Record<string, unknown>): { unit?: string } {
+  return typeof values.unit === 'string' ? { unit: values.unit } : {};
+}
 
 /**
  * The plan spec of any model from parsed `modelPlanFlags`; the engine then checks the relations.
@@ -148,7 +155,7 @@ const OWN_FLAGS: Record<string, readonly string[]> = {
 export function anyPlanSpecFromFlags(values: Record<string, unknown>): AnyPlanSpec {
   const model = requireFlag<AnyPlanSpec['model']>(values, 'model', modelPlanFlags);
   if (model === 'passfail' || model === 'count') {
-    rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes'], `does not apply to --model ${model}`);
+    rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes', 'unit'], `does not apply to --model ${model}`);
     for (const name of ['p0', 'p1']) {
       if (Array.isArray(values[name])) throw new UsageError(`--${name}`, 'a number in (0, 1)', `--${name} must be a number in (0, 1) for --model ${model} (got a list)`);
     }
@@ -170,6 +177,7 @@ export function anyPlanSpecFromFlags(values: Record<string, unknown>): AnyPlanSp
       beta,
       truncation: (values.truncate as number | undefined) ?? null,
       overshootCorrection: values['correct-overshoot'] === true,
+      ...unitOf(values),
     };
   }
   if (model === 'lifetime') {
@@ -181,6 +189,7 @@ export function anyPlanSpecFromFlags(values: Record<string, unknown>): AnyPlanSp
       beta,
       maxTime: (values['max-time'] as number | undefined) ?? null,
       maxFailures: (values['max-failures'] as number | undefined) ?? null,
+      ...unitOf(values),
     };
   }
   const classes = need<string[]>('classes');

@@ -3,12 +3,13 @@
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
 import os from 'node:os';
-import { createRunService, type RunService, type RunView } from '../inspection/index.js';
+import { checkAnyPlanSpec } from '../engine/index.js';
+import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
 import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { planFlags, planFlagsUsage, planSpecFromFlags } from './plan-flags.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
 import { formatNumber } from './table.js';
 
 /** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
@@ -26,7 +27,7 @@ export function runServiceFor(args: readonly string[]): { dataDirectory: string;
 }
 
 const startFlags = {
-  ...planFlags,
+  ...modelPlanFlags,
   ...dataDirectoryFlags,
   plan: flag.text('a saved plan id'),
   'plan-version': flag.integer(1),
@@ -39,7 +40,7 @@ const startFlags = {
   json: flag.switch(),
 };
 
-const PLAN_FLAG_NAMES = Object.keys(planFlags);
+const PLAN_FLAG_NAMES = Object.keys(modelPlanFlags);
 
 export const startCommand: Command = {
   summary: 'start an inspection run from a saved plan (--plan) or plan flags',
@@ -48,6 +49,7 @@ export const startCommand: Command = {
     '                           [--lot-size N] [--inspector NAME] [--note TEXT] [--data-dir DIR] [--json]',
     '  --plan ID                  a saved plan (its latest version unless --plan-version is given)',
     planFlagsUsage,
+    modelPlanFlagsUsage,
     '  --source NAME              the supplier, line or machine; created when new',
     '  --lot LOT                  the lot or batch id',
     '  --json                     print {"run": ID}',
@@ -70,7 +72,10 @@ export const startCommand: Command = {
           throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
         }
         rejectFlags(values, ['plan-version'], 'applies to --plan only');
-        const spec = planSpecFromFlags(values);
+        // Only the plan flags: the spec reader refuses any flag that is not its model's.
+        const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
+        const spec = anyPlanSpecFromFlags(planValues);
+        checkAnyPlanSpec(spec);
         const saved = await new PlanRepository(dataDirectory).save({
           name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
           sourceId: source.id,
@@ -98,14 +103,41 @@ export const startCommand: Command = {
 
 const showFlags = { ...dataDirectoryFlags, run: flag.text('a run id'), json: flag.switch() };
 
-/** The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}}. */
+/**
+ * The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}},
+ * the state with its model's fields for measurement (sum, mean), lifetime (time, failures) and graded (counts, demerits).
+ */
 export function showJson(view: RunView): unknown {
   return {
     run: view.run,
     plan: view.plan,
     entries: view.entries.map((entry) => ({ seq: entry.seq, time: entry.time, result: entry.result, voided: entry.voided })),
-    state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr },
+    state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr, ...modelFields(view.state) },
   };
+}
+
+function modelFields(state: RunState): Record<string, unknown> {
+  if (state.model === 'measurement') return { sum: state.sum, mean: state.mean };
+  if (state.model === 'lifetime') return { time: state.time, failures: state.failures };
+  if (state.model === 'graded') return { counts: state.counts, demerits: state.demerits };
+  return {};
+}
+
+/** One result as a line of `run show`: pass/fail, a count, a value, `time T`, `fail [T]` or a class name. */
+export function resultText(result: ItemResult): string {
+  if (typeof result !== 'object') return String(result);
+  if ('value' in result) return String(result.value);
+  if ('grade' in result) return result.grade;
+  if ('failure' in result) return result.time === undefined ? 'fail' : `fail ${result.time}`;
+  return `time ${result.time}`;
+}
+
+/** The model's evidence in words, for the state line of `run show`. */
+function evidenceText(state: RunState): string {
+  if (state.model === 'measurement') return `n = ${state.n}, sum = ${formatNumber(state.sum)}`;
+  if (state.model === 'lifetime') return `test time = ${formatNumber(state.time)}, failures = ${state.failures}`;
+  if (state.model === 'graded') return `n = ${state.n}, counts = ${state.counts.join('/')}, demerits = ${formatNumber(state.demerits)}`;
+  return `n = ${state.n}, total = ${state.total}`;
 }
 
 export const showCommand: Command = {
@@ -124,8 +156,8 @@ export const showCommand: Command = {
         io.stdout(
           [
             `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
-            `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, n = ${state.n}, total = ${state.total}, LLR = ${formatNumber(state.llr)}`,
-            ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${entry.result}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
+            `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
+            ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
             ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
           ].join('\n') + '\n',
         );

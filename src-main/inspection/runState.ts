@@ -54,7 +54,7 @@ export function resultProblem(spec: AnyPlanSpec, result: unknown, currentTime = 
       if (!(isRecord(result) && hasOnly(result, ['grade']) && typeof result.grade === 'string')) {
         return `a graded plan takes { "grade": class name } with a class of ${allowed}, not ${given}`;
       }
-      return gradeIndex(spec.classes, result.grade) >= 0 ? null : `${given} names no class of this plan; its classes are ${allowed}`;
+      return gradeIndex(spec.classes, result.grade) >= 0 ? null : `${JSON.stringify(result.grade)} names no class of this plan; its classes are ${allowed}`;
     }
   }
 }

@@ -6,6 +6,9 @@ import { stateHeadline } from './titleBlock.js';
 const MODEL_NAMES = {
   passfail: 'passfail (each item conforming or nonconforming; binomial SPRT)',
   count: 'count (nonconformities per item; Poisson SPRT)',
+  measurement: 'measurement (normal measurements, sigma known; SPRT on the sum)',
+  lifetime: 'lifetime (exponential times to failure; SPRT on test time and failures)',
+  graded: 'graded (items graded into classes; multinomial SPRT on demerits)',
 } as const;
 
 function hypothesis(name: string, level: QualityLevel): string {
@@ -36,7 +39,6 @@ export function drawTestedSection(layout: RecordLayout, input: DecisionRecordInp
 /** Model, hypotheses, risks, Wald boundaries, truncation, ASN and plan identity. */
 export function drawPlanSection(layout: RecordLayout, input: DecisionRecordInput): void {
   const { plan } = input;
-  const { boundaries } = plan;
   layout.heading('Plan');
   layout.keyValues([
     ['Plan', `${plan.planName === undefined ? '' : `${plan.planName}, id `}${plan.planId}, version ${plan.planVersion}`],
@@ -44,6 +46,15 @@ export function drawPlanSection(layout: RecordLayout, input: DecisionRecordInput
     ['Hypotheses', `${hypothesis('H0 (acceptable quality)', plan.acceptableQuality)}\n${hypothesis('H1 (rejectable quality)', plan.rejectableQuality)}`],
     ["Producer's risk (alpha)", risk(plan.producerRiskNominal, plan.producerRiskExact)],
     ["Consumer's risk (beta)", risk(plan.consumerRiskNominal, plan.consumerRiskExact)],
+    ...(input.modelDetail === undefined ? countPlanRows(input) : input.modelDetail.planRows),
+  ]);
+}
+
+/** Boundaries, LLR limits, truncation and ASN of a pass/fail or count plan. */
+function countPlanRows(input: DecisionRecordInput): Array<[string, string]> {
+  const { plan } = input;
+  const { boundaries } = plan;
+  return [
     [
       'Boundaries',
       `h1 = ${formatFixed(boundaries.h1, 4)}, h2 = ${formatFixed(boundaries.h2, 4)}, slope s = ${formatFixed(boundaries.slope, 6)}\n` +
@@ -55,7 +66,7 @@ export function drawPlanSection(layout: RecordLayout, input: DecisionRecordInput
       'Average sample number',
       `${formatNumber(plan.averageSampleNumberAtAcceptable)} items at H0, ${formatNumber(plan.averageSampleNumberAtRejectable)} items at H1`,
     ],
-  ]);
+  ];
 }
 
 /** The decision with its rule and the counts, then the quality estimate with its method. */
@@ -66,8 +77,10 @@ export function drawDecisionSection(layout: RecordLayout, input: DecisionRecordI
   layout.keyValues([
     ['Decision', stateHeadline(decision.state)],
     ['Rule applied', decision.rule],
-    ['Items inspected', formatCount(decision.itemsInspected)],
-    [counted, formatCount(decision.nonconformingFound)],
+    ...(input.modelDetail?.decisionRows ?? [
+      ['Items inspected', formatCount(decision.itemsInspected)],
+      [counted, formatCount(decision.nonconformingFound)],
+    ]),
     ['Final LLR', formatFixed(decision.finalLogLikelihoodRatio, 4)],
     ...estimateRows(estimate),
   ]);
@@ -77,12 +90,13 @@ function estimateRows(estimate: QualityEstimate | null): Array<[string, string]>
   if (estimate === null) return [['Quality estimate', 'none yet: no items inspected']];
   const named = estimate.pointEstimateName === undefined ? '' : `${estimate.pointEstimateName} `;
   const naive =
-    estimate.naiveEstimate === undefined ? '' : `\nnaive d/n = ${formatNumber(estimate.naiveEstimate)}, for comparison only (biased after a sequential stop)`;
+    (estimate.naiveEstimate === undefined ? '' : `\nnaive d/n = ${formatNumber(estimate.naiveEstimate)}, for comparison only (biased after a sequential stop)`) +
+    (estimate.detail === undefined ? '' : `\n${estimate.detail}`);
   return [
     [
       'Quality estimate',
       `${named}${formatNumber(estimate.pointEstimate)} ${estimate.unit}; ${formatNumber(estimate.confidenceLevel * 100, 3)} % confidence interval ` +
-        `${formatNumber(estimate.lower)} to ${formatNumber(estimate.upper)}${naive}`,
+        `${formatNumber(estimate.lower)} to ${Number.isFinite(estimate.upper) ? formatNumber(estimate.upper) : 'no upper limit'}${naive}`,
     ],
     ['Estimation method', estimate.methodName],
   ];

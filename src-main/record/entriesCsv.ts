@@ -38,7 +38,7 @@ export function entriesToCsv(entries: readonly RecordEntry[], model: RecordModel
       String(entry.sequence),
       entry.recordedAt,
       entry.itemId,
-      resultLabel(model, entry.nonconformities),
+      entry.resultText ?? resultLabel(model, entry.nonconformities),
       String(entry.nonconformities),
       entry.category ?? '',
       entry.note ?? '',

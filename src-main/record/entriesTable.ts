@@ -39,7 +39,7 @@ function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], m
     ['#', (entry) => String(entry.sequence), 40],
     [sharedOffset === null ? 'Time' : `Time (${sharedOffset})`, (entry) => timeText(entry, sharedOffset), 120],
     ['Item', (entry) => entry.itemId, 80],
-    ['Result', (entry) => resultLabel(model, entry.nonconformities), 80],
+    ['Result', (entry) => entry.resultText ?? resultLabel(model, entry.nonconformities), model === 'passfail' || model === 'count' ? 80 : 130],
     ['Category', (entry) => entry.category ?? '', 70],
     ['Note', (entry) => entry.note ?? '', Number.POSITIVE_INFINITY],
     ['Actor', (entry) => entry.actor, 110],

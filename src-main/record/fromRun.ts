@@ -3,10 +3,12 @@
  * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
  * the software's identity. The quality estimate is the sequential one once the run is decided.
  */
-import { designPlan, limitRows, resolvePlan, decide, PlanParameterError, type AnyPlanSpec, type PlanSpec } from '../engine/index.js';
+import { designPlan, limitRows, resolvePlan, decide, isExtendedPlanSpec, PlanParameterError, type AnyPlanSpec, type ExtendedPlanSpec, type PlanSpec } from '../engine/index.js';
 import { estimateAfterStop } from '../engine/estimation/index.js';
 import { resultTotal } from '../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
+import { modelChart } from './modelChartData.js';
+import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
 import { naiveQualityEstimate } from './naiveQualityEstimate.js';
 import type {
   BoundaryStep,
@@ -44,10 +46,38 @@ function qualityUnit(spec: PlanSpec): string {
   return spec.model === 'passfail' ? 'fraction nonconforming' : 'nonconformities per item';
 }
 
-/** The plan of a pass/fail or count run; the other models' records are made elsewhere. */
+/** The plan of a pass/fail or count run (the other models take modelRecordParts). */
 function linearSpec(spec: AnyPlanSpec): PlanSpec {
   if (spec.model === 'passfail' || spec.model === 'count') return spec;
-  throw new Error(`the decision record of a ${spec.model} run is not made yet`);
+  throw new Error(`a ${spec.model} plan has no acceptance numbers`);
+}
+
+/**
+ * The plan, decision, estimate and chart of a measurement, lifetime or graded run, in its natural
+ * units; the decision's numbers are the evidence as the run stands (as it closed, when closed).
+ */
+function modelRecordParts(read: RunJournalRead, spec: ExtendedPlanSpec, confidenceLevel: number) {
+  const { replay } = read;
+  const { plan } = replay.header;
+  const state = replay.evidence.state();
+  const close = replay.status === 'closed' ? replay.lastClose : null;
+  const { figures, rows } = modelPlan(spec);
+  const evidence = modelEvidence(spec, state);
+  const decision: RecordDecision = {
+    state: close === null ? 'continue' : closedState(close.rule, close.decision),
+    rule: close?.rule ?? (replay.lastClose === null ? state.rule ?? 'between the lines' : `none stands: the run was reopened after its decision (${replay.lastClose.decision}) by an override with a reason, and has not closed again`),
+    itemsInspected: state.n,
+    nonconformingFound: state.total,
+    finalLogLikelihoodRatio: state.llr,
+  };
+  const estimate = modelEstimate(spec, state, confidenceLevel);
+  return {
+    plan: { planId: plan.id, planName: plan.name, planVersion: String(plan.version), model: spec.model, producerRiskNominal: spec.alpha, consumerRiskNominal: spec.beta, ...figures } satisfies RecordPlan,
+    decision,
+    qualityEstimate: estimate === null || decision.state !== 'continue' ? estimate : { ...estimate, methodName: `Interim, the run is undecided: ${estimate.methodName}` },
+    modelDetail: { planRows: rows, decisionRows: evidence.rows, facts: evidence.facts, chart: modelChart(spec, replay.results, state) },
+    entries: recordEntries(read).map((entry, i) => ({ ...entry, resultText: modelResultText(spec, replay.results[i].result) })),
+  };
 }
 
 function recordPlan(read: RunJournalRead): RecordPlan {
@@ -186,7 +216,8 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
   const { header: runHeader, lastClose, status } = read.replay;
   const { run, plan, source } = runHeader;
   const opened = read.entries[0];
-  const decision = recordDecision(read);
+  const model = isExtendedPlanSpec(plan.spec) ? modelRecordParts(read, plan.spec, context.settings.confidenceLevel) : null;
+  const decision = model?.decision ?? recordDecision(read);
   const generated = context.generatedAt;
   return {
     header: {
@@ -210,11 +241,12 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
       endedAt: status === 'closed' && lastClose !== null ? localTimestamp(lastClose.time, closeOffset(read)) : null,
       timeZone: timeZoneOf(read),
     },
-    plan: recordPlan(read),
-    entries: recordEntries(read),
-    boundarySteps: boundarySteps(linearSpec(plan.spec), decision.itemsInspected),
+    plan: model?.plan ?? recordPlan(read),
+    entries: model?.entries ?? recordEntries(read),
+    boundarySteps: model === null ? boundarySteps(linearSpec(plan.spec), decision.itemsInspected) : [],
     decision,
-    qualityEstimate: recordQualityEstimate(linearSpec(plan.spec), decision, context.settings.confidenceLevel),
+    qualityEstimate: model === null ? recordQualityEstimate(linearSpec(plan.spec), decision, context.settings.confidenceLevel) : model.qualityEstimate,
+    ...(model === null ? {} : { modelDetail: model.modelDetail }),
     fingerprint: read.fingerprint,
     interim: decision.state === 'continue',
     approval: { inspectedBy: run.inspector, reviewedBy: null },

@@ -40,7 +40,35 @@ export interface RecordSubject {
   timeZone: string;
 }
 
-export type RecordModel = 'passfail' | 'count';
+export type RecordModel = 'passfail' | 'count' | 'measurement' | 'lifetime' | 'graded';
+
+/** A point of the evidence chart of a model with its own design path, in the chart's units. */
+export type ChartPoint = readonly [x: number, y: number];
+
+/**
+ * What the record prints for a measurement, lifetime or graded run, in the model's natural units,
+ * where the pass/fail and count record prints acceptance numbers and items.
+ */
+export interface ModelRecordDetail {
+  /** Plan rows that replace the pass/fail Boundaries, Truncation and Average sample number rows. */
+  planRows: Array<[label: string, text: string]>;
+  /** Rows of the decision section that replace Items inspected and Nonconforming found. */
+  decisionRows: Array<[label: string, text: string]>;
+  /** One line of counts under the decision headline. */
+  facts: string;
+  chart: {
+    xTitle: string;
+    yTitle: string;
+    evidenceLabel: string;
+    /** 'line': points joined straight; 'time-steps': time runs flat, a failure steps up (lifetime). */
+    pathStyle: 'line' | 'time-steps';
+    path: ChartPoint[];
+    /** The acceptance and rejection lines, as straight segments through these points. */
+    accept: ChartPoint[];
+    reject: ChartPoint[];
+    alt: string;
+  };
+}
 
 /** One hypothesis: the quality level with its symbol and unit, e.g. p0 = 0.01 fraction nonconforming. */
 export interface QualityLevel {
@@ -102,8 +130,10 @@ export interface RecordEntry {
   sequence: number;
   recordedAt: string;
   itemId: string;
-  /** Nonconformities found on the item: 0 or 1 for passfail, a count for the count model. */
+  /** Nonconformities found on the item: 0 or 1 for passfail, a count for the count model; 0 for the other models. */
   nonconformities: number;
+  /** The result as printed, for the other models: a measured value with its unit, a test time or failure, a class. */
+  resultText?: string;
   category: string | null;
   note: string | null;
   actor: string;
@@ -142,6 +172,8 @@ export interface QualityEstimate {
   upper: number;
   /** The unit of the estimate, e.g. "fraction nonconforming". */
   unit: string;
+  /** A further line, e.g. the share of each class of a graded run. */
+  detail?: string;
 }
 
 export interface RecordApproval {
@@ -165,6 +197,8 @@ export interface DecisionRecordInput {
   /** True for a run not yet decided: the record says so on every page. */
   interim: boolean;
   approval: RecordApproval;
+  /** Present for measurement, lifetime and graded runs: their rows and chart in natural units. */
+  modelDetail?: ModelRecordDetail;
 }
 
 /** Thrown when a DecisionRecordInput cannot make a truthful record; names the field and the value. */
@@ -235,8 +269,12 @@ export function validateDecisionRecordInput(input: DecisionRecordInput): void {
 
   requireText('plan.planId', plan.planId);
   requireText('plan.planVersion', plan.planVersion);
-  if (plan.model !== 'passfail' && plan.model !== 'count') {
-    throw new DecisionRecordInputError('plan.model', plan.model, "'passfail' or 'count'");
+  const linear = plan.model === 'passfail' || plan.model === 'count';
+  if (!linear && !['measurement', 'lifetime', 'graded'].includes(plan.model)) {
+    throw new DecisionRecordInputError('plan.model', plan.model, "'passfail', 'count', 'measurement', 'lifetime' or 'graded'");
+  }
+  if (linear === (input.modelDetail !== undefined)) {
+    throw new DecisionRecordInputError('modelDetail', input.modelDetail === undefined ? 'absent' : 'present', `present exactly for the measurement, lifetime and graded models (this plan is ${plan.model})`);
   }
   requireFinite('plan.acceptableQuality.value', plan.acceptableQuality.value);
   requireFinite('plan.rejectableQuality.value', plan.rejectableQuality.value);
@@ -266,7 +304,9 @@ export function validateDecisionRecordInput(input: DecisionRecordInput): void {
   input.boundarySteps.forEach((step, i) => requireCount(`boundarySteps[${i}].itemsInspected`, step.itemsInspected));
 
   requireCount('decision.itemsInspected', decision.itemsInspected);
-  requireCount('decision.nonconformingFound', decision.nonconformingFound);
+  // A measurement run's total is its sum, any real number; the count models' totals are counts.
+  if (linear) requireCount('decision.nonconformingFound', decision.nonconformingFound);
+  else requireFinite('decision.nonconformingFound', decision.nonconformingFound);
   requireFinite('decision.finalLogLikelihoodRatio', decision.finalLogLikelihoodRatio);
   requireText('decision.rule', decision.rule);
   const undecided = decision.state === 'continue';
@@ -280,8 +320,12 @@ export function validateDecisionRecordInput(input: DecisionRecordInput): void {
   } else {
     requireText('qualityEstimate.methodName', qualityEstimate.methodName);
     requireProbability('qualityEstimate.confidenceLevel', qualityEstimate.confidenceLevel);
-    for (const key of ['pointEstimate', 'lower', 'upper'] as const) {
+    for (const key of ['pointEstimate', 'lower'] as const) {
       requireFinite(`qualityEstimate.${key}`, qualityEstimate[key]);
+    }
+    // An MTBF interval with no failure yet has no upper limit.
+    if (!(Number.isFinite(qualityEstimate.upper) || (qualityEstimate.upper === Number.POSITIVE_INFINITY && plan.model === 'lifetime'))) {
+      throw new DecisionRecordInputError('qualityEstimate.upper', qualityEstimate.upper, 'a finite number (infinite only for a lifetime MTBF)');
     }
     if (qualityEstimate.naiveEstimate !== undefined) requireFinite('qualityEstimate.naiveEstimate', qualityEstimate.naiveEstimate);
   }

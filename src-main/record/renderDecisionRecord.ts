@@ -8,6 +8,7 @@ import { FOOTER_RESERVE, RecordLayout } from './layout.js';
 import { drawTitleBlock, subjectLine } from './titleBlock.js';
 import { drawDecisionSection, drawPlanSection, drawTestedSection } from './detailSections.js';
 import { drawEvidenceChart } from './evidenceChart.js';
+import { drawModelEvidenceChart } from './modelEvidenceChart.js';
 import { drawApprovalSection, drawCautionsSection, drawIntegritySection } from './closingSections.js';
 import { drawEntriesTable } from './entriesTable.js';
 import { drawPageFooters } from './pageFooters.js';
@@ -63,7 +64,8 @@ function drawRecord(doc: PDFKit.PDFDocument, input: DecisionRecordInput): void {
   drawTestedSection(layout, input);
   drawPlanSection(layout, input);
   layout.heading('Evidence', 250);
-  drawEvidenceChart(layout, input);
+  if (input.modelDetail === undefined) drawEvidenceChart(layout, input);
+  else drawModelEvidenceChart(layout, input.modelDetail.chart);
   drawDecisionSection(layout, input);
   drawIntegritySection(layout, input);
   drawApprovalSection(layout, input);

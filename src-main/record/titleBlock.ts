@@ -83,6 +83,7 @@ function drawDecisionBox(layout: RecordLayout, input: DecisionRecordInput): void
   const innerWidth = layout.width - 2 * padding;
   const headline = stateHeadline(decision.state);
   const facts =
+    input.modelDetail?.facts ??
     `${formatCount(decision.itemsInspected)} items inspected, ${formatCount(decision.nonconformingFound)} ` +
     `${input.plan.model === 'count' ? 'nonconformities' : 'nonconforming'} found, final LLR ${formatFixed(decision.finalLogLikelihoodRatio)}`;
   doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.body);
