@@ -110,6 +110,18 @@ test('a time-to-failure plan shows its test time in θ1 multiples, and a run wit
   await shoot(page, 'lifetime-plan');
   await savePlan(page, 'Pump, endurance', 'Eastgate Hydraulics');
 
+  // Exported and imported back over an edited form, the plan returns with every field.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export saved version…' }).click()]);
+  const exportedPath = test.info().outputPath('lifetime.json');
+  await download.saveAs(exportedPath);
+  await page.getByLabel('Acceptable MTBF θ0').fill('1500');
+  await page.getByLabel('Pass/fail items').check();
+  await page.getByLabel('Plan file to import').setInputFiles(exportedPath);
+  await expect(page.getByTestId('file-status')).toContainText('Imported “Pump, endurance”');
+  await expect(page.getByLabel('Time to failure')).toBeChecked();
+  await expect(page.getByLabel('Acceptable MTBF θ0')).toHaveValue('1000');
+  await expect(page.getByTestId('exact-time-h0')).toHaveText(design.design.exact.expectedTimeH0.toFixed(0));
+
   await startRun(page, 'T-7');
   await expect(page.getByTestId('test-time')).toBeFocused();
   await page.keyboard.type('400');
