@@ -13,6 +13,7 @@ import {
   type ExtendedPlanSpec,
 } from '../engine/index.js';
 import { RunEvidence, type RunEntryView, type RunState } from '../inspection/index.js';
+import { formatNumber } from './format.js';
 import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
 
 /** Items drawn past the last one, so the lines just ahead stay in view. */
@@ -34,17 +35,20 @@ export function modelChart(spec: ExtendedPlanSpec, results: readonly RunEntryVie
     const boundaries = measurementBoundaries(plan);
     const span = itemSpan(state.n, plan.truncation);
     const sign = boundaries.rejectWhen === 'above' ? 1 : -1;
-    const line = (offset: number): ChartPoint[] => [0, span].map((n): ChartPoint => [n, boundaries.slope * n + offset]);
+    // Drawn as the sum of deviations from mu0, S - n mu0: the same lines and crossings as the plain
+    // sum, but without the common slope mu0 that would squeeze lines and path into one stroke.
+    const lineSlope = boundaries.slope - spec.mu0;
+    const line = (offset: number): ChartPoint[] => [0, span].map((n): ChartPoint => [n, lineSlope * n + offset]);
     const unit = spec.unit ? ` (${spec.unit})` : '';
     return {
       xTitle: 'Measurements, n',
-      yTitle: `Sum of measurements${unit}`,
-      evidenceLabel: 'running sum',
+      yTitle: `Running sum less n mu0, S - ${formatNumber(spec.mu0)} n${unit}`,
+      evidenceLabel: 'running sum less n mu0',
       pathStyle: 'line',
-      path: states.map((at): ChartPoint => [at.n, at.total]),
+      path: states.map((at): ChartPoint => [at.n, at.total - at.n * spec.mu0]),
       accept: line(-sign * boundaries.h1),
       reject: line(sign * boundaries.h2),
-      alt: `Chart of the running sum of ${state.n} measurements against n, drawn against the plan's acceptance and rejection lines.`,
+      alt: `Chart of the running sum of ${state.n} measurements less n mu0 against n, drawn against the plan's acceptance and rejection lines.`,
     };
   }
   if (spec.model === 'lifetime') {

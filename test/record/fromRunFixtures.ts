@@ -6,7 +6,7 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { AnyPlanSpec, PlanSpec } from '../../src-main/engine/index.js';
 import { createRunService, type ResultInput, type RunService } from '../../src-main/inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, type PlanVersion, type Source } from '../../src-main/store/index.js';
 
@@ -56,7 +56,7 @@ export async function sourceWithPlan(
   space: RecordWorkspace,
   sourceName: string,
   planName: string,
-  spec: PlanSpec,
+  spec: AnyPlanSpec,
   checks: { part?: string; characteristic?: string } = {},
 ): Promise<{ source: Source; plan: PlanVersion }> {
   const source = (await space.sources.findOrCreate(sourceName)).source;
