@@ -11,7 +11,6 @@ import {
   lifetimeBoundaries,
   lifetimeIncrementLaw,
   lifetimePlan,
-  rejectTime,
   remainingLines,
   truncationAcceptFailures,
 } from './lifetime.js';
