@@ -68,7 +68,8 @@ export function historyRow(read: RunJournalRead): HistoryRow {
     decision: close?.decision ?? 'undecided',
     rule: close?.rule ?? null,
     itemsInspected: replay.n,
-    nonconformingFound: replay.total,
+    // A sum of measurements, failures or demerits is not a count of nonconforming items.
+    nonconformingFound: plan.spec.model === 'passfail' || plan.spec.model === 'count' ? replay.total : 0,
     model: plan.spec.model,
     verified: read.problems.length === 0,
   };
