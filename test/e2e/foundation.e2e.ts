@@ -24,6 +24,7 @@ test('an impossible pair of quality levels shows the engine message and keeps th
   await page.getByLabel('Rejectable quality p1').fill('0.5');
   await expect(page.getByTestId('plan-problem')).toContainText('p1');
   await expect(page.getByTestId('plan-problem')).toContainText('greater');
+  await expect(page.getByTestId('plan-problem')).toContainText('p1 = 0.5 %'); // in the percent the engineer typed
   await expect(page.getByLabel('Rejectable quality p1')).toHaveValue('0.5');
   await expect(page.getByLabel('Rejectable quality p1')).toHaveAttribute('aria-invalid', 'true');
   await expect(page.getByTestId('h1')).toHaveText('–');

@@ -7,6 +7,7 @@ import type { PlanDesign } from '../../../../src-main/api/channels/planChannels'
 import type { AnyPlanSpec } from '../../../../src-main/engine/index';
 import { request } from '../../lib/channelClient';
 import { latestOnly } from '../../lib/latestOnly';
+import { messageInScreenUnits } from './messageInScreenUnits';
 import type { DraftReading } from './planDraft.svelte';
 
 export interface DesignProblem {
@@ -43,6 +44,7 @@ export class PlanDesignState {
   private readonly ask = latestOnly(
     async (wanted: Request & { generation: number }) => ({
       generation: wanted.generation,
+      model: wanted.spec.model,
       result: await request('plan.design', {
         spec: wanted.spec,
         suggestTruncation: wanted.suggestTruncation,
@@ -51,7 +53,7 @@ export class PlanDesignState {
         ticket: ++this.ticket,
       }),
     }),
-    ({ generation, result }) => {
+    ({ generation, model, result }) => {
       if (generation !== this.generation) return; // the inputs became invalid meanwhile
       if (result.ok && result.value.superseded) return; // a newer request is on its way
       this.pending = false;
@@ -62,7 +64,7 @@ export class PlanDesignState {
       } else if (!result.ok) {
         this.design = null;
         this.spec = null;
-        this.problem = { message: result.message, field: result.field };
+        this.problem = { message: messageInScreenUnits(result.message, model), field: result.field };
       }
     },
     150,
