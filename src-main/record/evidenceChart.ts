@@ -78,17 +78,15 @@ function drawAxes(doc: PDFKit.PDFDocument, frame: Frame, xTitle: string, yTitle:
   doc.restore();
 }
 
-function drawLegend(doc: PDFKit.PDFDocument, frame: Frame, countWord: string): void {
-  const items: Array<[string, string, boolean, number]> = [
-    [`cumulative ${countWord}`, INK.evidence, false, 1.6],
-    ['rejection number', INK.text, true, 0.9],
-    ['acceptance number', INK.text, false, 0.9],
-  ];
+/** One legend entry: label, stroke colour, dashed or not, line width. */
+export type LegendItem = [label: string, color: string, dashed: boolean, width: number];
+
+/** A one-row legend of line samples, right-aligned over the plot (from its left edge when it would not fit). */
+export function drawLineLegend(doc: PDFKit.PDFDocument, frame: { left: number; top: number; width: number }, items: readonly LegendItem[]): void {
   doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.small);
   const gap = 12;
   const widths = items.map(([label]) => 22 + doc.widthOfString(label));
   const total = widths.reduce((sum, width) => sum + width, 0) + gap * (items.length - 1);
-  // Right-aligned over the plot; starts at the plot's left edge when it would not fit.
   let x = Math.max(frame.left, frame.left + frame.width - total);
   const y = frame.top - 11;
   items.forEach(([label, color, dashed, width], i) => {
@@ -98,6 +96,14 @@ function drawLegend(doc: PDFKit.PDFDocument, frame: Frame, countWord: string): v
     doc.fillColor(INK.text).text(label, x + 22, y, { lineBreak: false });
     x += widths[i] + gap;
   });
+}
+
+function drawLegend(doc: PDFKit.PDFDocument, frame: Frame, countWord: string): void {
+  drawLineLegend(doc, frame, [
+    [`cumulative ${countWord}`, INK.evidence, false, 1.6],
+    ['rejection number', INK.text, true, 0.9],
+    ['acceptance number', INK.text, false, 0.9],
+  ]);
 }
 
 /**

@@ -3,7 +3,7 @@
  * units against the plan's acceptance and rejection lines, drawn as vector paths.
  */
 import { FONT_REGULAR } from './fonts.js';
-import { niceStep } from './evidenceChart.js';
+import { drawLineLegend, niceStep } from './evidenceChart.js';
 import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
 import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
 
@@ -46,23 +46,11 @@ function drawAxes(doc: PDFKit.PDFDocument, frame: Frame, chart: ModelRecordDetai
 }
 
 function drawLegend(doc: PDFKit.PDFDocument, frame: Frame, evidenceLabel: string): void {
-  const items: Array<[string, string, boolean, number]> = [
+  drawLineLegend(doc, frame, [
     [evidenceLabel, INK.evidence, false, 1.6],
     ['rejection line', INK.text, true, 0.9],
     ['acceptance line', INK.text, false, 0.9],
-  ];
-  doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.small);
-  const gap = 12;
-  const widths = items.map(([label]) => 22 + doc.widthOfString(label));
-  let x = Math.max(frame.left, frame.left + frame.width - widths.reduce((sum, width) => sum + width, 0) - gap * (items.length - 1));
-  const y = frame.top - 11;
-  items.forEach(([label, color, dashed, width], i) => {
-    if (dashed) doc.dash(3, { space: 2 });
-    doc.moveTo(x, y + 3.5).lineTo(x + 18, y + 3.5).lineWidth(width).strokeColor(color).stroke();
-    doc.undash();
-    doc.fillColor(INK.text).text(label, x + 22, y, { lineBreak: false });
-    x += widths[i] + gap;
-  });
+  ]);
 }
 
 function strokeLine(doc: PDFKit.PDFDocument, frame: Frame, points: readonly ChartPoint[]): void {
