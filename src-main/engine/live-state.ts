@@ -28,6 +28,22 @@ export interface LookAhead {
   expectedRemainingEstimate: number | null;
 }
 
+/** The look-ahead from exact evaluations (probability of acceptance, remaining items) at H0, H1 and the estimate. */
+export function lookAhead(
+  atH0: { accept: number; asn: number },
+  atH1: { accept: number; asn: number },
+  atEstimate: { accept: number; asn: number } | null,
+): LookAhead {
+  return {
+    probabilityAcceptH0: atH0.accept,
+    probabilityAcceptH1: atH1.accept,
+    probabilityAcceptEstimate: atEstimate === null ? null : atEstimate.accept,
+    expectedRemainingH0: atH0.asn,
+    expectedRemainingH1: atH1.asn,
+    expectedRemainingEstimate: atEstimate === null ? null : atEstimate.asn,
+  };
+}
+
 export interface LiveState extends LookAhead {
   n: number;
   total: number;
@@ -141,11 +157,6 @@ export function liveState(spec: PlanSpec, n: number, total: number): LiveState {
     itemsToEarliestReject: decision === 'reject' ? 0 : reject === null ? null : reject.items,
     nonconformingToReject: decision === 'reject' ? 0 : reject === null ? null : reject.count,
     estimate,
-    probabilityAcceptH0: atH0.accept,
-    probabilityAcceptH1: atH1.accept,
-    probabilityAcceptEstimate: atEstimate === null ? null : atEstimate.accept,
-    expectedRemainingH0: atH0.asn,
-    expectedRemainingH1: atH1.asn,
-    expectedRemainingEstimate: atEstimate === null ? null : atEstimate.asn,
+    ...lookAhead(atH0, atH1, atEstimate),
   };
 }

@@ -1,5 +1,5 @@
 import { PlanParameterError } from '../errors.js';
-import type { LookAhead } from '../live-state.js';
+import { lookAhead, type LookAhead } from '../live-state.js';
 import { classCountRecursion } from '../graded/class-count-exact.js';
 import { simulateGradedSprt } from '../graded/graded-simulation.js';
 import type { SimulatedPoint } from '../graded/graded-simulation.js';
@@ -212,12 +212,7 @@ export function gradedLiveState(spec: GradedSpec, counts: readonly number[]): Gr
     llr,
     acceptDemerits: acceptLine < 0 ? null : acceptLine,
     rejectDemerits: boundaries.slope * n + boundaries.h2,
-    probabilityAcceptH0: atH0.accept,
-    probabilityAcceptH1: atH1.accept,
-    probabilityAcceptEstimate: atEstimate === null ? null : atEstimate.accept,
-    expectedRemainingH0: atH0.asn,
-    expectedRemainingH1: atH1.asn,
-    expectedRemainingEstimate: atEstimate === null ? null : atEstimate.asn,
+    ...lookAhead(atH0, atH1, atEstimate),
     method: exact ? 'exact' : 'simulated',
   };
 }

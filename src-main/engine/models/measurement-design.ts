@@ -1,5 +1,5 @@
 import { createNormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
-import type { LookAhead } from '../live-state.js';
+import { lookAhead, type LookAhead } from '../live-state.js';
 import type { NormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
 import { PlanParameterError } from '../errors.js';
 import type { Decision } from '../integer-lines.js';
@@ -216,11 +216,6 @@ export function measurementLiveState(spec: MeasurementSpec, n: number, sum: numb
     llr,
     nextValueAccepts: open ? valueAt(lastStep ? 0 : plan.acceptLimit) : null,
     nextValueRejects: open ? valueAt(lastStep ? 0 : plan.rejectLimit) : null,
-    probabilityAcceptH0: atH0.accept,
-    probabilityAcceptH1: atH1.accept,
-    probabilityAcceptEstimate: atEstimate === null ? null : atEstimate.accept,
-    expectedRemainingH0: atH0.asn,
-    expectedRemainingH1: atH1.asn,
-    expectedRemainingEstimate: atEstimate === null ? null : atEstimate.asn,
+    ...lookAhead(atH0, atH1, atEstimate),
   };
 }
