@@ -118,6 +118,12 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   expect(await page.getByTestId('state-banner').innerText()).toBe(bannerBefore);
   await expect(page.locator('[data-testid="entry-row"][data-voided="true"]')).toHaveCount(1);
   await screenshotBothThemes(page, 'inspect-run-decided');
+
+  // The decided run leads straight to its estimate with the interval and its decision record.
+  await page.getByTestId('open-record').click();
+  await expect(page.getByTestId('record-view')).toBeVisible();
+  await expect(page.getByTestId('record-estimate')).toContainText('interval');
+  await expect(page.getByTestId('record-estimate')).toContainText('Whitehead');
 });
 
 test('more entries after the decision need a recorded reason', async ({ page, host }) => {
