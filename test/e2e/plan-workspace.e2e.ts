@@ -87,7 +87,7 @@ test('an invalid risk shows what is allowed, computes nothing and keeps what was
   await expect(page.getByTestId('h1')).toHaveText('0.939');
   const alpha = page.getByLabel("Producer's risk α");
   await alpha.fill('0');
-  await expect(page.getByTestId('plan-problem')).toContainText('alpha must be a number in (0, 1)');
+  await expect(page.getByTestId('plan-problem')).toContainText('alpha must be above 0 % and below 100 %');
   await expect(alpha).toHaveAttribute('aria-invalid', 'true');
   await expect(page.locator('#alpha-help')).toContainText('alpha must be');
   await expect(page.getByTestId('h1')).toHaveText('–');
