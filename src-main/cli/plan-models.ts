@@ -1,17 +1,10 @@
 /**
  * `tallyline plan` for the models with their own design path (measurement, lifetime, graded):
- * the design as JSON, or a short readable summary.
+ * a short readable summary (the JSON is the engine's design as it is).
  */
 import { designGradedPlan, designLifetimePlan, designMeasurementPlan } from '../engine/index.js';
 import type { ExtendedPlanSpec } from '../engine/index.js';
 import { formatNumber, formatPercent, formatTable } from './table.js';
-
-/** Designs any extended plan with `points` qualities on its curve. */
-export function designExtendedPlan(spec: ExtendedPlanSpec, points: number) {
-  if (spec.model === 'measurement') return designMeasurementPlan(spec, { curvePoints: points });
-  if (spec.model === 'lifetime') return designLifetimePlan(spec, { curvePoints: points });
-  return designGradedPlan(spec, { curvePoints: points });
-}
 
 /** The readable form of an extended design. */
 export function readableExtendedPlan(spec: ExtendedPlanSpec): string {

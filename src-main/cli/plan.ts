@@ -1,13 +1,13 @@
 /**
  * `tallyline plan`: designs a sequential plan and prints it, as JSON (--json) or as readable tables.
  */
-import { designPlan } from '../engine/index.js';
+import { designAnyPlan, designPlan, isExtendedPlanSpec } from '../engine/index.js';
 import type { LimitRow, PlanDesign, PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
 import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
-import { designExtendedPlan, readableExtendedPlan } from './plan-models.js';
+import { readableExtendedPlan } from './plan-models.js';
 import { formatNumber, formatPercent, formatTable } from './table.js';
 
 const flags = { ...modelPlanFlags, points: flag.integer(2, 10001), json: flag.switch() };
@@ -26,13 +26,13 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     const spec = anyPlanSpecFromFlags(values);
-    if (spec.model === 'measurement' || spec.model === 'lifetime' || spec.model === 'graded') {
-      const text = values.json ? JSON.stringify(designExtendedPlan(spec, values.points ?? 51), null, 2) : readableExtendedPlan(spec);
-      io.stdout(`${text}\n`);
-      return EXIT_OK;
+    if (values.json) {
+      io.stdout(`${JSON.stringify(designAnyPlan(spec, { curvePoints: values.points ?? 51 }), null, 2)}\n`);
+    } else if (isExtendedPlanSpec(spec)) {
+      io.stdout(`${readableExtendedPlan(spec)}\n`);
+    } else {
+      io.stdout(`${readablePlan(spec, designPlan(spec, { curvePoints: values.points ?? 51 }))}\n`);
     }
-    const design = designPlan(spec, { curvePoints: values.points ?? 51 });
-    io.stdout(values.json ? `${JSON.stringify(design, null, 2)}\n` : `${readablePlan(spec, design)}\n`);
     return EXIT_OK;
   },
 };
