@@ -1,57 +1,17 @@
 import { z } from 'zod';
 import type { AnyPlanDesign, AnyPlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
+import { planSpecSchemas } from '../../store/planSpecSchema.js';
 import type { PlanVersion } from '../../store/plans.js';
 import type { SourceKind, SourcePart } from '../../store/sources.js';
 
-/** A finite number; ranges (0 < p0 < p1 < 1, alpha + beta < 1, ...) are the engine factory's job. */
-const finite = z.number().finite();
-const planOptions = {
-  alpha: finite,
-  beta: finite,
-  truncation: z.number().int().nullable().optional(),
-  fit: z.enum(['wald', 'exact']).optional(),
-};
-
-const risks = { alpha: finite, beta: finite };
-const truncation = z.number().int().nullable().optional();
-/** A unit for display only, e.g. "mm" or "unit-hours". */
-const unit = z.string().trim().max(40).optional();
-
-const passFailSpec = z.object({ model: z.literal('passfail'), p0: finite, p1: finite, ...planOptions });
-const countSpec = z.object({ model: z.literal('count'), lambda0: finite, lambda1: finite, ...planOptions });
+/** Shape only at the channel: ranges (0 < p0 < p1 < 1, alpha + beta < 1, ...) are the engine factory's job, with its specific messages. */
+const channelSpecSchemas = planSpecSchemas({ proportion: z.number().finite(), positive: z.number().finite(), whole: z.number().int() });
 
 /** The linear-count models (pass/fail, count): the only ones `plan.limits` answers for. */
-export const linearPlanSpecSchema = z.discriminatedUnion('model', [passFailSpec, countSpec]);
+export const linearPlanSpecSchema = channelSpecSchemas.linear;
 
-/**
- * The plan parameters of every model as they cross a boundary (IPC, HTTP, files, CLI):
- * - passfail `{p0, p1, alpha, beta, truncation?, fit?}`, count `{lambda0, lambda1, ...same}`;
- * - measurement `{mu0, mu1, sigma, alpha, beta, truncation?, overshootCorrection?, unit?}`;
- * - lifetime `{theta0, theta1, alpha, beta, maxTime?, maxFailures?, unit?}`;
- * - graded `{classes: string[], p0: number[], p1: number[], alpha, beta, truncation?}`.
- */
-export const planSpecSchema = z.discriminatedUnion('model', [
-  passFailSpec,
-  countSpec,
-  z.object({ model: z.literal('measurement'), mu0: finite, mu1: finite, sigma: finite, ...risks, truncation, overshootCorrection: z.boolean().optional(), unit }),
-  z.object({
-    model: z.literal('lifetime'),
-    theta0: finite,
-    theta1: finite,
-    ...risks,
-    maxTime: finite.nullable().optional(),
-    maxFailures: z.number().int().nullable().optional(),
-    unit,
-  }),
-  z.object({
-    model: z.literal('graded'),
-    classes: z.array(z.string().trim().min(1, 'A class needs a name.').max(60)).min(2, 'A graded plan has at least 2 classes.').max(10, 'A graded plan has at most 10 classes.'),
-    p0: z.array(finite).max(10),
-    p1: z.array(finite).max(10),
-    ...risks,
-    truncation,
-  }),
-]);
+/** The plan parameters of every model as they cross a channel (IPC, HTTP). */
+export const planSpecSchema = channelSpecSchemas.any;
 
 const planId = z.string().min(1).max(80);
 const nothing = z.null().optional();
