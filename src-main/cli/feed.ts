@@ -5,7 +5,7 @@
  */
 import { createInterface } from 'node:readline';
 import type { RunService } from '../inspection/index.js';
-import { parseFeedLine } from './feed-parse.js';
+import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';

@@ -6,8 +6,8 @@ import type { LimitRow, PlanDesign, PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
-import { readableExtendedPlan } from './plan-models.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { readableExtendedPlan } from './planModels.js';
 import { formatNumber, formatPercent, formatTable } from './table.js';
 
 const flags = { ...modelPlanFlags, points: flag.integer(2, 10001), json: flag.switch() };

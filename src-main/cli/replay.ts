@@ -6,8 +6,8 @@ import type { PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
-import { replayExtended } from './replay-models.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { replayExtended } from './replayModels.js';
 import { formatNumber, formatTable } from './table.js';
 
 const flags = { ...modelPlanFlags, results: flag.text('a file path, or - for standard input'), json: flag.switch() };

@@ -9,7 +9,7 @@ import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './plan-flags.js';
+import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
 
 /** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */

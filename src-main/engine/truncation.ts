@@ -1,5 +1,5 @@
-import { createExactEvaluator } from './exact-evaluator.js';
-import type { IntegerLines } from './integer-lines.js';
+import { createExactEvaluator } from './exactEvaluator.js';
+import type { IntegerLines } from './integerLines.js';
 import type { CountStep } from './models/model.js';
 
 /** How far above nominal the truncated plan's exact risks may be. */

@@ -9,7 +9,7 @@ import {
   designMeasurementPlan,
   type ExtendedPlanSpec,
 } from '../engine/index.js';
-import { normalQuantile } from '../engine/numerics/normal-distribution.js';
+import { normalQuantile } from '../engine/numerics/normalDistribution.js';
 import type { ItemResult, RunState } from '../inspection/index.js';
 import { formatCount, formatFixed, formatNumber } from './format.js';
 import { naiveQualityEstimate } from './naiveQualityEstimate.js';

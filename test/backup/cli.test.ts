@@ -2,7 +2,7 @@ import { mkdtemp, readFile, readdir, rm, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { runCli } from '../cli/run-cli.js';
+import { runCli } from '../cli/runCli.js';
 
 const folders: string[] = [];
 afterEach(async () => {

@@ -5,7 +5,7 @@
  */
 import { readdirSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import type { BenchCase } from './bench-case.js';
+import type { BenchCase } from './benchCase.js';
 
 const casesFolder = fileURLToPath(new URL('./cases/', import.meta.url));
 

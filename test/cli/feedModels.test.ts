@@ -3,7 +3,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runCli } from './run-cli.js';
+import { runCli } from './runCli.js';
 
 describe('tallyline run start and feed for measurement, lifetime and graded plans', () => {
   let data: string;

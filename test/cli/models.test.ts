@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './run-cli.js';
+import { runCli } from './runCli.js';
 
 const measurement = ['--model', 'measurement', '--mu0', '0', '--mu1', '1', '--sigma', '1', '--alpha', '0.05', '--beta', '0.1'];
 const lifetime = ['--model', 'lifetime', '--theta0', '2000', '--theta1', '1000', '--alpha', '0.1', '--beta', '0.1'];

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './run-cli.js';
+import { runCli } from './runCli.js';
 
 const nistFlags = ['--model', 'passfail', '--p0', '0.01', '--p1', '0.10', '--alpha', '0.05', '--beta', '0.10'];
 

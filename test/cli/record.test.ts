@@ -7,7 +7,7 @@ import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
 import { layout } from '../../src-main/store/index.js';
 import { decidedKestrelRun, incomingSpec, passes, recordWorkspace, sourceWithPlan, type RecordWorkspace } from '../record/fromRunFixtures.js';
 import { flatten } from '../record/pdfInspection.js';
-import { runCli } from './run-cli.js';
+import { runCli } from './runCli.js';
 
 describe('tallyline record, verify --pdf and export on a real data folder', () => {
   let space: RecordWorkspace;

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designGradedPlan, gradedLiveState, gradedPlan } from '../../src-main/engine/index.js';
 import type { GradedSpec } from '../../src-main/engine/index.js';
-import { classCountRecursion } from '../../src-main/engine/graded/class-count-exact.js';
-import { simulateGradedSprt } from '../../src-main/engine/graded/graded-simulation.js';
+import { classCountRecursion } from '../../src-main/engine/graded/classCountExact.js';
+import { simulateGradedSprt } from '../../src-main/engine/graded/gradedSimulation.js';
 
 const threeClass: GradedSpec = {
   model: 'graded', classes: ['conforming', 'minor', 'major'], p0: [0.9, 0.08, 0.02], p1: [0.75, 0.17, 0.08], alpha: 0.05, beta: 0.1,

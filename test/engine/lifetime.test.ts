@@ -10,7 +10,7 @@ import {
   lifetimePlan,
 } from '../../src-main/engine/index.js';
 import type { LifetimeSpec } from '../../src-main/engine/index.js';
-import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
+import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { poisson: { cdf(k: number, mean: number): number } };

@@ -10,9 +10,9 @@ import {
   SIEGMUND_RHO,
 } from '../../src-main/engine/index.js';
 import type { MeasurementSpec } from '../../src-main/engine/index.js';
-import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normal-distribution.js';
-import { seededRandom } from '../../src-main/engine/numerics/seeded-random.js';
-import { waldOperatingPoint } from '../../src-main/engine/numerics/wald-exponent.js';
+import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normalDistribution.js';
+import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
+import { waldOperatingPoint } from '../../src-main/engine/numerics/waldExponent.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { normal: { cdf(x: number, mean: number, sd: number): number } };

@@ -1,9 +1,9 @@
 import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integer-lines.js';
-import type { IncrementLaw } from '../numerics/wald-exponent.js';
+import type { Decision } from '../integerLines.js';
+import type { IncrementLaw } from '../numerics/waldExponent.js';
 import type { GradedSpec } from '../spec.js';
 import { checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../wald-boundaries.js';
+import { waldLimits } from '../waldBoundaries.js';
 import type { KlDivergences } from './model.js';
 
 /** A validated graded plan: the constants every later call uses. */

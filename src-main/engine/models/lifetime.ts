@@ -1,10 +1,10 @@
-import type { PoissonSprtLines } from '../continuous/poisson-sprt-exact.js';
+import type { PoissonSprtLines } from '../continuous/poissonSprtExact.js';
 import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integer-lines.js';
+import type { Decision } from '../integerLines.js';
 import type { LifetimeSpec } from '../spec.js';
 import { checkInteger, checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../wald-boundaries.js';
-import type { IncrementLaw } from '../numerics/wald-exponent.js';
+import { waldLimits } from '../waldBoundaries.js';
+import type { IncrementLaw } from '../numerics/waldExponent.js';
 
 /** A validated lifetime plan: the constants every later call uses. Times are in the spec's unit. */
 export interface LifetimePlan {

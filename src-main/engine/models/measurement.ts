@@ -2,9 +2,9 @@ import { PlanParameterError } from '../errors.js';
 import type { KlDivergences } from './model.js';
 import type { MeasurementSpec } from '../spec.js';
 import { checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../wald-boundaries.js';
-import { waldOcFromExponent } from '../wald-curve.js';
-import type { Decision } from '../integer-lines.js';
+import { waldLimits } from '../waldBoundaries.js';
+import { waldOcFromExponent } from '../waldCurve.js';
+import type { Decision } from '../integerLines.js';
 
 /**
  * Siegmund's overshoot constant for normal random walks, rho = -zeta(1/2)/sqrt(2 pi) = 0.58260:

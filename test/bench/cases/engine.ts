@@ -2,7 +2,7 @@
 // truncation 3000, exact OC and ASN at 201 evenly spaced p from 0.01 to 0.15.
 import { createPlanEvaluator, designPlan, liveState } from '../../../src-main/engine/index.js';
 import type { PlanSpec } from '../../../src-main/engine/index.js';
-import { benchCase } from '../bench-case.js';
+import { benchCase } from '../benchCase.js';
 
 const curveSpec: PlanSpec = { model: 'passfail', p0: 0.05, p1: 0.08, alpha: 0.05, beta: 0.05, truncation: 3000 };
 const nist: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };

@@ -19,7 +19,7 @@ import {
   lineHash,
   type JournalEntry,
 } from '../../../src-main/store/index.js';
-import { benchCase } from '../bench-case.js';
+import { benchCase } from '../benchCase.js';
 
 const RELOAD_RESULTS = 10_000;
 

@@ -6,7 +6,7 @@ import {
   createStoppingEvaluator,
   estimateAfterStop,
 } from '../../../src-main/engine/estimation/index.js';
-import { poissonCdf } from '../reference-distributions.js';
+import { poissonCdf } from '../referenceDistributions.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 plan (reference-values CV-02): rejection number 2 for n = 2..19,
 // first acceptance (count 0) at n = 24.

@@ -1,15 +1,15 @@
 import { PlanParameterError } from './errors.js';
-import { createExactEvaluator } from './exact-evaluator.js';
+import { createExactEvaluator } from './exactEvaluator.js';
 import {
   acceptanceNumber,
   decisionAt,
   rawAcceptanceNumber,
   rejectionNumber,
   truncationAcceptanceNumber,
-} from './integer-lines.js';
-import type { Decision, IntegerLines } from './integer-lines.js';
-import { resolvePlan } from './plan-lines.js';
-import type { ResolvedPlan } from './plan-lines.js';
+} from './integerLines.js';
+import type { Decision, IntegerLines } from './integerLines.js';
+import { resolvePlan } from './planLines.js';
+import type { ResolvedPlan } from './planLines.js';
 import type { PlanSpec } from './spec.js';
 import { checkInteger } from './validate.js';
 

@@ -1,9 +1,9 @@
-import { createNormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
-import { lookAhead, type LookAhead } from '../live-state.js';
-import type { NormalSprtEvaluator } from '../continuous/normal-sprt-exact.js';
+import { createNormalSprtEvaluator } from '../continuous/normalSprtExact.js';
+import { lookAhead, type LookAhead } from '../liveState.js';
+import type { NormalSprtEvaluator } from '../continuous/normalSprtExact.js';
 import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integer-lines.js';
-import { normalQuantile } from '../numerics/normal-distribution.js';
+import type { Decision } from '../integerLines.js';
+import { normalQuantile } from '../numerics/normalDistribution.js';
 import type { MeasurementSpec } from '../spec.js';
 import { checkInteger } from '../validate.js';
 import type { KlDivergences } from './model.js';
@@ -17,7 +17,7 @@ import {
   SIEGMUND_RHO,
 } from './measurement.js';
 import type { MeasurementBoundaries, MeasurementPlan } from './measurement.js';
-import { measurementLimitRows } from './extended-limit-rows.js';
+import { measurementLimitRows } from './extendedLimitRows.js';
 
 /** One quality on the measurement plan's curves; theta is the true mean. */
 export interface MeasurementCurvePoint {

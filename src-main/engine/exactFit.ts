@@ -1,6 +1,6 @@
-import { createExactEvaluator } from './exact-evaluator.js';
-import type { ExactPoint } from './exact-evaluator.js';
-import type { IntegerLines } from './integer-lines.js';
+import { createExactEvaluator } from './exactEvaluator.js';
+import type { ExactPoint } from './exactEvaluator.js';
+import type { IntegerLines } from './integerLines.js';
 import type { CountStep } from './models/model.js';
 
 export interface ExactFit {

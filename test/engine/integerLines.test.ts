@@ -6,7 +6,7 @@ import {
   truncationAcceptanceNumber,
 } from '../../src-main/engine/index.js';
 import type { IntegerLines } from '../../src-main/engine/index.js';
-import { linesOf } from './plan-fixtures.js';
+import { linesOf } from './planFixtures.js';
 
 /** Expands "first-last: accept reject" rows (null for x) into per-n checks. */
 function expectTable(lines: IntegerLines, rows: Array<[number, number, number | null, number | null]>): void {

@@ -1,8 +1,8 @@
 import { PlanParameterError } from '../errors.js';
-import { rawAcceptanceNumber, rejectionNumber } from '../integer-lines.js';
-import type { IntegerLines } from '../integer-lines.js';
+import { rawAcceptanceNumber, rejectionNumber } from '../integerLines.js';
+import type { IntegerLines } from '../integerLines.js';
 import type { CountStep } from '../models/model.js';
-import { StagewiseSide } from './stagewise-order.js';
+import { StagewiseSide } from './stagewiseOrder.js';
 
 /** The stopping points of a plan at one item count: which cumulative counts can end the run there. */
 export interface StoppingPointsAt {

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { createExactEvaluator, createPlanEvaluator, waldBoundaries } from '../../src-main/engine/index.js';
-import { enumerateBernoulli, enumeratePoisson } from './brute-force.js';
-import { linesOf, montgomery, nist } from './plan-fixtures.js';
+import { enumerateBernoulli, enumeratePoisson } from './bruteForce.js';
+import { linesOf, montgomery, nist } from './planFixtures.js';
 
 // Suggested tolerances of reference-values §9: 1e-4 absolute for probabilities, 1e-3 relative for ASN.
 function expectPoint(actual: { accept: number; asn: number }, oc: number, asn: number): void {
@@ -78,7 +78,7 @@ describe('exact OC and ASN for count data', () => {
   });
 
   it('agrees with a walk over every sequence of counts for a plan truncated at 5 units', () => {
-    // Independent method: depth-first enumeration of count sequences (brute-force.ts).
+    // Independent method: depth-first enumeration of count sequences (bruteForce.ts).
     const lines = linesOf({ model: 'count', lambda0: 1, lambda1: 2, alpha: 0.1, beta: 0.1 }, 5);
     const evaluator = createExactEvaluator(lines, 'poisson');
     for (const rate of [0.5, 1, 1.5, 2]) {

@@ -1,14 +1,14 @@
-import { createExactEvaluator } from './exact-evaluator.js';
-import { acceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integer-lines.js';
-import type { IntegerLines } from './integer-lines.js';
+import { createExactEvaluator } from './exactEvaluator.js';
+import { acceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
+import type { IntegerLines } from './integerLines.js';
 import { PlanParameterError } from './errors.js';
-import type { CurvePoint, LimitRow, PlanDesign } from './plan-design-types.js';
-import { resolvePlan } from './plan-lines.js';
-import { sampleSizeQuantiles } from './sample-size-quantiles.js';
-import { singleSamplingPlan } from './single-plan.js';
+import type { CurvePoint, LimitRow, PlanDesign } from './planDesignTypes.js';
+import { resolvePlan } from './planLines.js';
+import { sampleSizeQuantiles } from './sampleSizeQuantiles.js';
+import { singleSamplingPlan } from './singlePlan.js';
 import type { PlanSpec } from './spec.js';
 import { suggestedTruncation } from './truncation.js';
-import { neutralQuality, waldPoint } from './wald-curve.js';
+import { neutralQuality, waldPoint } from './waldCurve.js';
 
 export interface DesignOptions {
   /** Number of qualities on the OC/ASN curve, 2..10001. Default 51. */

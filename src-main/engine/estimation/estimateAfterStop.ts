@@ -1,9 +1,9 @@
-import { decisionAt } from '../integer-lines.js';
+import { decisionAt } from '../integerLines.js';
 import type { PlanSpec } from '../spec.js';
-import { biasAdjustedEstimate } from './bias-adjusted.js';
-import { stagewiseInference } from './stagewise-interval.js';
-import { createStoppingEvaluator } from './stopping-distribution.js';
-import type { StoppingEvaluator } from './stopping-distribution.js';
+import { biasAdjustedEstimate } from './biasAdjusted.js';
+import { stagewiseInference } from './stagewiseInterval.js';
+import { createStoppingEvaluator } from './stoppingDistribution.js';
+import type { StoppingEvaluator } from './stoppingDistribution.js';
 
 export const ESTIMATION_METHOD =
   'stagewise exact (Armitage 1958; Jennison & Turnbull 2000 §8.4), bias-adjusted (Whitehead 1986)';

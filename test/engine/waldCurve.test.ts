@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { designPlan, neutralQuality, resolvePlan, waldPoint } from '../../src-main/engine/index.js';
 import type { PlanSpec } from '../../src-main/engine/index.js';
-import { montgomery, nist } from './plan-fixtures.js';
+import { montgomery, nist } from './planFixtures.js';
 
 function wald(spec: PlanSpec, theta: number) {
   const plan = resolvePlan(spec);

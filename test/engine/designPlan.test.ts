@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designPlan } from '../../src-main/engine/index.js';
-import { nist } from './plan-fixtures.js';
+import { nist } from './planFixtures.js';
 
 describe('designPlan', () => {
   it('has exactly the keys of the CLI contract, and the extras', () => {

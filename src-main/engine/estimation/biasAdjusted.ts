@@ -1,7 +1,7 @@
-import { bracketAbove, solveIncreasing } from './monotone-root.js';
-import type { StagewiseTail, StoppingEvaluator } from './stopping-distribution.js';
-import { StagewiseSide } from './stagewise-order.js';
-import { checkStoppingPoint } from './stopping-points.js';
+import { bracketAbove, solveIncreasing } from './monotoneRoot.js';
+import type { StagewiseTail, StoppingEvaluator } from './stoppingDistribution.js';
+import { StagewiseSide } from './stagewiseOrder.js';
+import { checkStoppingPoint } from './stoppingPoints.js';
 
 const scratch: StagewiseTail = { below: 0, equal: 0, above: 0, meanNaive: 0, undecided: 0 };
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, decide, designPlan, liveState } from '../../src-main/engine/index.js';
 import type { PlanSpec } from '../../src-main/engine/index.js';
-import { nist } from './plan-fixtures.js';
+import { nist } from './planFixtures.js';
 
 const counts: PlanSpec = { model: 'count', lambda0: 1, lambda1: 2, alpha: 0.1, beta: 0.1 };
 

@@ -1,10 +1,10 @@
 import { PlanParameterError } from '../errors.js';
-import { rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from '../integer-lines.js';
-import type { IntegerLines } from '../integer-lines.js';
+import { rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from '../integerLines.js';
+import type { IntegerLines } from '../integerLines.js';
 import type { CountStep } from '../models/model.js';
-import { resolvePlan } from '../plan-lines.js';
+import { resolvePlan } from '../planLines.js';
 import type { PlanSpec } from '../spec.js';
-import { StagewiseSide, compareStagewise } from './stagewise-order.js';
+import { StagewiseSide, compareStagewise } from './stagewiseOrder.js';
 
 /** One point (n, d) at which a run of the plan stops, with its probability at the quality asked. */
 export interface StoppingPoint {

@@ -1,6 +1,6 @@
 import type { KlDivergences } from './models/model.js';
 import type { FitMode, ModelName } from './spec.js';
-import type { WaldBoundaries } from './wald-boundaries.js';
+import type { WaldBoundaries } from './waldBoundaries.js';
 
 export interface SampleSizeQuantiles {
   /** Smallest item count by which the decision is made with probability >= 50% (null if never). */

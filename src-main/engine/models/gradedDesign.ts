@@ -1,16 +1,16 @@
 import { PlanParameterError } from '../errors.js';
-import { lookAhead, type LookAhead } from '../live-state.js';
-import { classCountRecursion } from '../graded/class-count-exact.js';
-import { simulateGradedSprt } from '../graded/graded-simulation.js';
-import type { SimulatedPoint } from '../graded/graded-simulation.js';
-import type { Decision } from '../integer-lines.js';
-import { waldOperatingPoint } from '../numerics/wald-exponent.js';
+import { lookAhead, type LookAhead } from '../liveState.js';
+import { classCountRecursion } from '../graded/classCountExact.js';
+import { simulateGradedSprt } from '../graded/gradedSimulation.js';
+import type { SimulatedPoint } from '../graded/gradedSimulation.js';
+import type { Decision } from '../integerLines.js';
+import { waldOperatingPoint } from '../numerics/waldExponent.js';
 import type { GradedSpec } from '../spec.js';
 import { checkInteger } from '../validate.js';
 import type { KlDivergences } from './model.js';
 import { decideGraded, gradedBoundaries, gradedIncrementLaw, gradedKl, gradedPlan, gradedQuality } from './graded.js';
 import type { GradedBoundaries, GradedPlan } from './graded.js';
-import { gradedLimitRows } from './extended-limit-rows.js';
+import { gradedLimitRows } from './extendedLimitRows.js';
 
 /** Largest item count the exact recursion runs to (k <= 3); beyond it the design simulates. */
 export const GRADED_EXACT_LIMIT = 400;

@@ -3,19 +3,19 @@
  * (pass/fail, count) go through `designPlan`, the others through their own design path. Every
  * design carries its `model`, so callers can tell the shapes apart.
  */
-import { designPlan } from './design-plan.js';
+import { designPlan } from './designPlan.js';
 import { gradedPlan } from './models/graded.js';
-import { designGradedPlan } from './models/graded-design.js';
-import type { GradedDesign } from './models/graded-design.js';
+import { designGradedPlan } from './models/gradedDesign.js';
+import type { GradedDesign } from './models/gradedDesign.js';
 import { lifetimePlan } from './models/lifetime.js';
-import { designLifetimePlan } from './models/lifetime-design.js';
-import type { LifetimeDesign } from './models/lifetime-design.js';
+import { designLifetimePlan } from './models/lifetimeDesign.js';
+import type { LifetimeDesign } from './models/lifetimeDesign.js';
 import { measurementPlan } from './models/measurement.js';
-import { designMeasurementPlan } from './models/measurement-design.js';
-import type { MeasurementDesign } from './models/measurement-design.js';
-import type { PlanDesign } from './plan-design-types.js';
+import { designMeasurementPlan } from './models/measurementDesign.js';
+import type { MeasurementDesign } from './models/measurementDesign.js';
+import type { PlanDesign } from './planDesignTypes.js';
 import type { AnyPlanSpec, ExtendedPlanSpec } from './spec.js';
-import { waldBoundaries } from './wald-boundaries.js';
+import { waldBoundaries } from './waldBoundaries.js';
 
 /** The design of a plan of any model, discriminated by `model`. */
 export type AnyPlanDesign = PlanDesign | MeasurementDesign | LifetimeDesign | GradedDesign;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { countModel, passFailModel, resolvePlan, singleSamplingPlan } from '../../src-main/engine/index.js';
 import type { PlanSpec } from '../../src-main/engine/index.js';
-import { binomialCdf, poissonCdf } from './reference-distributions.js';
+import { binomialCdf, poissonCdf } from './referenceDistributions.js';
 
 function single(spec: PlanSpec) {
   return singleSamplingPlan(resolvePlan(spec).model, spec);

@@ -1,4 +1,4 @@
-import type { SampleSizeQuantiles } from './plan-design-types.js';
+import type { SampleSizeQuantiles } from './planDesignTypes.js';
 
 /**
  * Quantiles of the item count at the decision, from P(stop at n).

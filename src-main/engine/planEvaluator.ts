@@ -1,6 +1,6 @@
-import { createExactEvaluator } from './exact-evaluator.js';
-import type { ExactEvaluator, ExactEvaluatorOptions } from './exact-evaluator.js';
-import { resolvePlan } from './plan-lines.js';
+import { createExactEvaluator } from './exactEvaluator.js';
+import type { ExactEvaluator, ExactEvaluatorOptions } from './exactEvaluator.js';
+import { resolvePlan } from './planLines.js';
 import type { PlanSpec } from './spec.js';
 
 /** An exact OC/ASN evaluator for a plan spec, with the spec's model and lines resolved once. */

@@ -1,10 +1,10 @@
-import { fitExactRisks } from './exact-fit.js';
-import type { ExactFit } from './exact-fit.js';
-import type { IntegerLines } from './integer-lines.js';
+import { fitExactRisks } from './exactFit.js';
+import type { ExactFit } from './exactFit.js';
+import type { IntegerLines } from './integerLines.js';
 import type { ModelDefinition } from './models/model.js';
 import { validatedModel } from './models/registry.js';
 import type { PlanSpec } from './spec.js';
-import { waldLimits } from './wald-boundaries.js';
+import { waldLimits } from './waldBoundaries.js';
 
 /** A validated plan: its model, Wald's limits, and the integer lines actually used. */
 export interface ResolvedPlan {

@@ -1,7 +1,7 @@
 import { PlanParameterError } from '../errors.js';
-import { bracketAbove, solveIncreasing } from './monotone-root.js';
-import type { StagewiseTail, StoppingEvaluator } from './stopping-distribution.js';
-import { checkStoppingPoint } from './stopping-points.js';
+import { bracketAbove, solveIncreasing } from './monotoneRoot.js';
+import type { StagewiseTail, StoppingEvaluator } from './stoppingDistribution.js';
+import { checkStoppingPoint } from './stoppingPoints.js';
 
 /** Exact inference from the stagewise ordering for one observed stopping point. */
 export interface StagewiseInference {

@@ -1,5 +1,5 @@
-import { neutralCount, rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integer-lines.js';
-import type { IntegerLines } from './integer-lines.js';
+import { neutralCount, rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
+import type { IntegerLines } from './integerLines.js';
 import type { CountStep } from './models/model.js';
 
 /** Exact operating characteristics of the integer plan at one quality. */

@@ -1,4 +1,4 @@
-import { waldOcFromExponent } from '../wald-curve.js';
+import { waldOcFromExponent } from '../waldCurve.js';
 
 /** The law of one LLR increment z at some quality, as Wald's OC and ASN need it. */
 export interface IncrementLaw {

@@ -1,7 +1,7 @@
-import { evaluatePoissonSprt } from '../continuous/poisson-sprt-exact.js';
+import { evaluatePoissonSprt } from '../continuous/poissonSprtExact.js';
 import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integer-lines.js';
-import { waldOperatingPoint } from '../numerics/wald-exponent.js';
+import type { Decision } from '../integerLines.js';
+import { waldOperatingPoint } from '../numerics/waldExponent.js';
 import type { LifetimeSpec } from '../spec.js';
 import { checkInteger } from '../validate.js';
 import type { KlDivergences } from './model.js';
@@ -15,9 +15,9 @@ import {
   truncationAcceptFailures,
 } from './lifetime.js';
 import type { LifetimeBoundaries, LifetimePlan } from './lifetime.js';
-import { fixedDurationPlan } from './lifetime-fixed-duration.js';
-import { lifetimeLimitRows } from './extended-limit-rows.js';
-import type { FixedDurationPlan } from './lifetime-fixed-duration.js';
+import { fixedDurationPlan } from './lifetimeFixedDuration.js';
+import { lifetimeLimitRows } from './extendedLimitRows.js';
+import type { FixedDurationPlan } from './lifetimeFixedDuration.js';
 
 export interface LifetimeCurvePoint {
   /** True MTBF. */
