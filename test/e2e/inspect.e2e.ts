@@ -155,10 +155,13 @@ test('an unfinished run reopens from the list where it stopped', async ({ page, 
   await page.screenshot({ path: 'test/artifacts/inspect-start-and-runs-light.png' });
   await page.locator('[data-testid="open-run"]', { hasText: 'L-2043' }).click();
   await expectEngineNumbers(page, liveState(spec, 5, 0));
-  // On the main keys, minus is part of an id until the scan ends with Enter, then it records.
+  // On the main keys, minus is part of an id, also after the scan has ended; the number pad's minus records.
   await page.keyboard.type('SN-9');
   await page.keyboard.press('Enter');
   await page.keyboard.press('Minus');
+  await expect(page.getByTestId('item-id')).toHaveValue('SN-9-');
+  await page.getByTestId('item-id').fill('SN-9');
+  await page.keyboard.press('NumpadSubtract');
   const sixth = page.locator('[data-testid="entry-row"][data-seq="6"]');
   await expect(sixth).toContainText('SN-9');
   await expect(sixth).toContainText('nonconforming');
