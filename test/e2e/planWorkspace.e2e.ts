@@ -145,7 +145,7 @@ test('a plan is saved under a source, exported, re-imported and equal', async ({
 
   // An edit saved to that plan becomes version 2; version 1 stays as it was.
   await page.getByLabel("Consumer's risk β").fill('5');
-  await expect(page.getByTestId('save-status')).toContainText('differ from the version opened');
+  await expect(page.getByTestId('draft-of')).toContainText('differ from saved “Bracket, hole position” v1');
   await page.getByRole('button', { name: 'Save as version 2' }).click();
   await expect(page.getByTestId('plan-versions').locator('li')).toHaveCount(2);
 });
