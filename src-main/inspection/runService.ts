@@ -14,6 +14,7 @@ import {
   analyseJournal,
   checkId,
   folderNames,
+  journalHolder,
   layout,
   newId,
   type JournalProblem,
@@ -292,6 +293,13 @@ export function createRunService(options: RunServiceOptions) {
           return readOnlyView(runId);
         }
       });
+    },
+
+    /** Whether another live process holds the run's journal for writing (reads only its lock file). */
+    async heldElsewhere(runId: string): Promise<boolean> {
+      if (open.has(checkId('run', runId))) return false;
+      const holder = await journalHolder(layout.runJournal(dataDirectory, runId));
+      return holder !== null && holder !== process.pid;
     },
 
     /** A run as it is on disk, without taking its lock or repairing anything (for viewers and `run show`). */

@@ -10,8 +10,18 @@ export interface JournalLock {
   release(): Promise<void>;
 }
 
+function lockPathOf(journalPath: string): string {
+  return journalPath.replace(/\.journal$/, '') + '.lock';
+}
+
+/** The pid of the live process holding the journal's lock, or null when none does (one small file read). */
+export async function journalHolder(journalPath: string): Promise<number | null> {
+  const holder = Number.parseInt(await readFile(lockPathOf(journalPath), 'utf8').catch(() => ''), 10);
+  return Number.isInteger(holder) && holder > 0 && isAlive(holder) ? holder : null;
+}
+
 export async function acquireJournalLock(journalPath: string): Promise<JournalLock> {
-  const lockPath = journalPath.replace(/\.journal$/, '') + '.lock';
+  const lockPath = lockPathOf(journalPath);
   for (let attempt = 0; attempt < 3; attempt += 1) {
     try {
       const handle = await open(lockPath, 'wx');
