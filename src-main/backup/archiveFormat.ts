@@ -20,7 +20,7 @@ const ARCHIVED_PATHS = [
   /^settings\.json$/,
   new RegExp(`^sources/${SEGMENT}\\.json$`),
   new RegExp(`^plans/${SEGMENT}/v[1-9]\\d{0,8}\\.json$`),
-  new RegExp(`^runs/${SEGMENT}\\.(journal|quarantine)$`),
+  new RegExp(`^runs/${SEGMENT}\\.(journal|quarantine|anchor)$`),
 ];
 
 /** Whether a relative path is one of the data folder's own files (and cannot leave the folder). */

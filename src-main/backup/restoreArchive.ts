@@ -14,7 +14,7 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readFile, readdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { z } from 'zod';
-import { planVersionSchema, processIsAlive, settingsSchema, sourceSchema, syncFolder, verifyJournal } from '../store/index.js';
+import { liveLockOwner, planVersionSchema, settingsSchema, sourceSchema, syncFolder, verifyJournal } from '../store/index.js';
 import { ArchiveRefusedError, RestoreBlockedError } from './archiveFormat.js';
 import { unpackArchive, type ArchivedFile } from './readArchive.js';
 
@@ -151,9 +151,9 @@ async function refuseWhileRunsAreOpen(dataDirectory: string): Promise<void> {
     throw error;
   }
   for (const name of names.filter((entry) => entry.endsWith('.lock'))) {
-    const pid = Number.parseInt(await readFile(path.join(dataDirectory, 'runs', name), 'utf8').catch(() => ''), 10);
-    if (Number.isInteger(pid) && pid > 0 && processIsAlive(pid)) {
-      const who = pid === process.pid ? 'this Tallyline' : `another Tallyline (process ${pid})`;
+    const owner = await liveLockOwner(path.join(dataDirectory, 'runs', name));
+    if (owner !== null) {
+      const who = owner.pid === process.pid ? 'this Tallyline' : `another Tallyline (process ${owner.pid}${owner.host === null ? '' : ` on ${owner.host}`})`;
       throw new RestoreBlockedError(
         `run ${name.slice(0, -'.lock'.length)} is open for entry in ${who}; close Tallyline and restore from the command line ` +
           `(tallyline restore --from FILE --data-dir DIR)`,
