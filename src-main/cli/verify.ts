@@ -52,7 +52,7 @@ export const command: Command = {
   usage: [
     'Usage: tallyline verify --run ID [--pdf FILE] [--data-dir DIR] [--json]',
     '  --pdf FILE                 also check the fingerprint printed in this decision record and in its metadata',
-    '  --json                     print {ok, entries, fingerprint, problems: [{seq, line, problem, kind}]}',
+    '  --json                     print {ok, entries, fingerprint, problems: [{seq, line, problem, kind}], anchor: {status, seq, fingerprint}}',
     '                             and with --pdf also record: {file, printed, metadata, matches, differs}',
     '  exit code 0 when the chain verifies (and the record matches), 1 when not',
   ].join('\n'),
@@ -66,9 +66,15 @@ export const command: Command = {
     if (values.json === true) {
       io.stdout(`${JSON.stringify(record === null ? report : { ...report, ok, record })}\n`);
     } else {
+      const anchorLine =
+        report.anchor.status === 'missing'
+          ? ['  no anchor file beside the journal: its last entries cannot be checked against anything outside it']
+          : report.anchor.status === 'one-ahead'
+            ? [`  the last entry is one past its anchor (seq ${report.anchor.seq}): a crash between journal and anchor; opening the run anchors it`]
+            : [];
       const chain = report.ok
-        ? [`Run ${runId}: chain verifies, ${report.entries} entries, fingerprint ${report.fingerprint}`]
-        : [`Run ${runId}: chain does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`)];
+        ? [`Run ${runId}: chain verifies and matches its anchor, ${report.entries} entries, fingerprint ${report.fingerprint}`, ...anchorLine]
+        : [`Run ${runId}: journal does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`), ...anchorLine];
       io.stdout([...chain, ...(record === null ? [] : recordLines(record, report))].join('\n') + '\n');
     }
     return ok ? EXIT_OK : EXIT_FAILURE;
