@@ -73,8 +73,8 @@ export const command: Command = {
             ? [`  the last entry is one past its anchor (seq ${report.anchor.seq}): a crash between journal and anchor; opening the run anchors it`]
             : [];
       const chain = report.ok
-        ? [`Run ${runId}: chain verifies and matches its anchor, ${report.entries} entries, fingerprint ${report.fingerprint}`, ...anchorLine]
-        : [`Run ${runId}: journal does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`), ...anchorLine];
+        ? [`Run ${runId}: chain verifies, ${report.entries} entries, fingerprint ${report.fingerprint}`, ...anchorLine]
+        : [`Run ${runId}: chain does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`), ...anchorLine];
       io.stdout([...chain, ...(record === null ? [] : recordLines(record, report))].join('\n') + '\n');
     }
     return ok ? EXIT_OK : EXIT_FAILURE;

@@ -38,7 +38,7 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
     const verified = await runCli(['verify', '--run', decidedId, '--pdf', out, '--json', ...dataFlags()]);
     expect(verified.code).toBe(0);
     const report = JSON.parse(verified.stdout);
-    expect(Object.keys(report)).toEqual(['ok', 'entries', 'fingerprint', 'problems', 'record']);
+    expect(Object.keys(report)).toEqual(['ok', 'entries', 'fingerprint', 'problems', 'anchor', 'record']);
     expect(report).toMatchObject({ ok: true, problems: [], record: { printed: report.fingerprint, metadata: [report.fingerprint, report.fingerprint], matches: true, differs: [] } });
   }, 60_000);
 
@@ -93,16 +93,17 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
   }, 60_000);
 
   it('fails verification against the printed record when the last line was edited, naming both copies of the fingerprint', async () => {
-    // The close entry is the last line: nothing after it carries its hash, so only the fingerprint shows the edit.
+    // The close entry is the last line: nothing after it carries its hash, so only the anchor and the fingerprint show the edit.
     const { printed, json, words } = await verifyAfterEdit((journal) => {
       const lines = journal.trimEnd().split('\n');
       lines[lines.length - 1] = lines[lines.length - 1].replace('"actor":"A. Brennan"', '"actor":"A. Brenan"');
       return `${lines.join('\n')}\n`;
     });
     expect(json.code).toBe(1);
-    expect(json.report).toMatchObject({ ok: false, problems: [], record: { printed, matches: false, differs: ['printed', 'metadata'] } });
+    expect(json.report).toMatchObject({ ok: false, anchor: { status: 'differs', fingerprint: printed }, record: { printed, matches: false, differs: ['printed', 'metadata'] } });
+    expect(json.report.problems).toEqual([expect.objectContaining({ seq: json.report.entries - 1, kind: 'tampered' })]);
     expect(json.report.fingerprint).not.toBe(printed);
-    expect(words.stdout).toContain('chain verifies');
+    expect(words.stdout).toMatch(/does not have the hash its anchor records/);
     expect(words.stdout).toContain('its fingerprint does NOT match the journal (printed and metadata differ)');
     expect(words.stdout).toContain(`printed:  ${printed}`);
     expect(words.stdout).toContain(`journal:  ${json.report.fingerprint}`);
