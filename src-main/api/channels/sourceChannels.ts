@@ -1,8 +1,9 @@
 import { z } from 'zod';
+import { idSchema } from '../../store/ids.js';
 import type { HistoryRun, SourceSummary } from '../../history/index.js';
 import type { Source } from '../../store/sources.js';
 
-const sourceId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A source id is letters, digits, ".", "_" or "-".');
+const sourceId = idSchema('source');
 const sourceName = z.string().trim().min(1, 'A source needs a name.').max(120);
 const kind = z.enum(['supplier', 'line', 'machine']);
 const part = z.object({
