@@ -30,6 +30,7 @@
  */
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
+import { shortText } from '../../store/textFields.js';
 import type { GradedLiveState, LifetimeLiveState, LimitRow, LiveState, MeasurementLiveState } from '../../engine/index.js';
 import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, type RunView } from '../../inspection/index.js';
 
@@ -37,7 +38,7 @@ import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, ty
 const runId = idSchema('run');
 const optionalText = (limit: number) => z.string().max(limit).nullable().optional();
 /** Who made an entry; the run's inspector when left out. */
-const actor = z.string().trim().min(1).max(120).optional();
+const actor = shortText('The name of who made the entry').optional();
 
 /** Channels of the Inspect place. Sources and plan versions for the start form come from the plan channels. */
 export const inspectionChannels = {
@@ -47,7 +48,7 @@ export const inspectionChannels = {
       planId: idSchema('plan'),
       planVersion: z.number().int().positive().optional(),
       sourceId: z.string().min(1, 'Choose the source of the lot.').pipe(idSchema('source')),
-      lot: z.string().trim().min(1, 'A run needs a lot or batch id.').max(120),
+      lot: shortText('A lot or batch id', 'A run needs a lot or batch id.'),
       lotSize: z.number().int('The lot size is a whole number of items.').positive('The lot size is at least 1 item.').nullable().optional(),
       inspector: optionalText(120),
       note: optionalText(2000),
