@@ -96,7 +96,7 @@ export function parseFlags<F extends FlagTable>(args: readonly string[], table: 
     const name = equals < 0 ? arg.slice(2) : arg.slice(2, equals);
     const definition = Object.hasOwn(table, name) ? table[name] : undefined;
     if (definition === undefined) {
-      throw new UsageError(`--${name}`, flagList(table), `unknown flag ${shown(`--${name}`)} (allowed: ${flagList(table)})`);
+      throw new UsageError(`--${name}`, flagList(table), `unknown flag ${visibleText(`--${name}`.slice(0, 60))} (allowed: ${flagList(table)})`);
     }
     if (Object.hasOwn(values, name)) {
       throw new UsageError(`--${name}`, 'given once', `--${name} is given more than once`);

@@ -5,7 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CliIo } from '../../src-main/cli/command.js';
-import { runCli as runCliInProcess } from '../../src-main/cli/runCli.js';
+import { runCli as runCliInProcess } from '../../src-main/cli/commandLine.js';
 import { unboundedSpecs } from '../engine/unboundedSpecs.js';
 import { runCli as spawnCli } from './runCli.js';
 
