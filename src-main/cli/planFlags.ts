@@ -121,7 +121,7 @@ export const modelPlanFlags = {
   'max-time': flag.positive(),
   'max-failures': flag.integer(1),
   classes: classNamesFlag,
-  unit: flag.text('a unit, e.g. mm or unit-hours'),
+  unit: flag.text('A unit (e.g. mm or unit-hours)', 40),
 };
 
 export const modelPlanFlagsUsage = [

@@ -9,10 +9,9 @@ import { layout, verifyJournal, type JournalVerification } from '../store/index.
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { requireRunId } from './record.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './run.js';
 
-const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), pdf: flag.text('a decision record PDF'), json: flag.switch() };
+const flags = { ...dataDirectoryFlags, run: flag.id('run'), pdf: flag.path('a decision record PDF'), json: flag.switch() };
 
 /** What a record PDF says against the journal: each copy of its fingerprint, and which differ. */
 interface RecordCheck {
@@ -59,8 +58,9 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     const runId = requireFlag<string>(values, 'run', flags);
-    requireRunId(runId);
-    const report = await verifyJournal(layout.runJournal(dataDirectoryFor(args), runId));
+    const dataDirectory = await checkedDataDirectory(args);
+    await requireExistingRun(dataDirectory, runId);
+    const report = await verifyJournal(layout.runJournal(dataDirectory, runId));
     const record = values.pdf === undefined ? null : await checkRecord(values.pdf, report.fingerprint);
     const ok = report.ok && (record?.matches ?? true);
     if (values.json === true) {

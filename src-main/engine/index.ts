@@ -60,3 +60,5 @@ export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptio
 export { designAnyPlan, checkAnyPlanSpec, isExtendedPlanSpec } from './designAnyPlan.js';
 export type { AnyPlanDesign } from './designAnyPlan.js';
 export { measurementLimitRows, lifetimeLimitRows, gradedLimitRows } from './models/extendedLimitRows.js';
+export { checkPlanWork, estimatePlanWork, PLAN_LIMITS } from './planWork.js';
+export type { PlanWorkEstimate } from './planWork.js';

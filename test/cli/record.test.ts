@@ -139,7 +139,7 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
     [['record', '--out', 'x.pdf'], '--run is required'],
     [['record', '--run', 'run-1'], '--out is required'],
     [['record', '--run', 'run-1', '--out', 'record.txt'], '--out must be a file path ending in .pdf'],
-    [['record', '--run', '../../etc/passwd', '--out', 'x.pdf'], '--run: run id'],
+    [['record', '--run', '../../etc/passwd', '--out', 'x.pdf'], '--run must be a run id'],
     [['record', '--run', 'run-1', '--out', 'x.pdf', '--colour', 'red'], 'unknown flag --colour'],
     [['verify', '--run', 'run-1', '--pdf'], '--pdf needs a value'],
     [['export', '--run', 'run-1'], '--out is required'],
@@ -153,6 +153,6 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
   it('exits 1 with one line for a run that does not exist', async () => {
     const result = await runCli(['record', '--run', 'run-20250101-00000000', '--out', path.join(space.data, 'none.pdf'), ...dataFlags()]);
     expect(result.code).toBe(1);
-    expect(result.stderr).toBe('tallyline record: there is no run run-20250101-00000000 in this data folder\n');
+    expect(result.stderr).toBe(`tallyline record: there is no run run-20250101-00000000 in the data folder ${space.data}\n`);
   }, 30_000);
 });
