@@ -2,11 +2,11 @@ import { existsSync, readFileSync } from 'node:fs';
 import { readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { fingerprintFromPdf, pdfText } from '../../src-main/record/fingerprintFromPdf.js';
+import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
 import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
 import { layout } from '../../src-main/store/index.js';
 import { decidedKestrelRun, incomingSpec, passes, recordWorkspace, sourceWithPlan, type RecordWorkspace } from '../record/fromRunFixtures.js';
-import { flatten } from '../record/pdfInspection.js';
+import { flatten, pdfText } from '../record/pdfInspection.js';
 import { runCli } from './runCli.js';
 
 describe('tallyline record, verify --pdf and export on a real data folder', () => {
