@@ -62,6 +62,7 @@ const badValues: Array<[string, string | null]> = [
 ];
 
 let root: string;
+let startingFolder: string;
 let data: string;
 let runId: string;
 let aFile: string;
@@ -69,6 +70,10 @@ let readOnly: string;
 
 beforeAll(async () => {
   root = await mkdtemp(path.join(os.tmpdir(), 'tallyline-bad-inputs-'));
+  // The walk passes bad values as output paths too (e.g. `--out NaN`): run it inside the temp folder so
+  // a value that is a valid file name lands there, never in the repository.
+  startingFolder = process.cwd();
+  process.chdir(root);
   data = path.join(root, 'data');
   await mkdir(data);
   const started = await cli(['run', 'start', ...nistFlags, '--source', 'Quillfeather Valves (invented)', '--lot', 'QV-0001', '--json', '--data-dir', data]);
@@ -82,6 +87,7 @@ beforeAll(async () => {
 }, 30_000);
 
 afterAll(async () => {
+  process.chdir(startingFolder);
   await chmod(readOnly, 0o700).catch(() => undefined);
   await rm(root, { recursive: true, force: true });
 });
