@@ -84,7 +84,12 @@ export async function startBrowserHost(options: BrowserHostOptions): Promise<Bro
     url: `http://127.0.0.1:${port}/#token=${token}`,
     port,
     token,
-    close: () => new Promise((resolve) => server.close(() => resolve())),
+    // A browser keeps its connections open; end them so a stop (SIGTERM, window closed) finishes at once.
+    close: () =>
+      new Promise((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      }),
   };
 }
 
