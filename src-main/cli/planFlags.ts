@@ -60,7 +60,7 @@ export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
   };
 }
 
-// ---- Models with their own design path (issue 8): measurement, lifetime, graded. ----
+// ---- Models with their own design path: measurement, lifetime, graded. ----
 
 const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
