@@ -1,7 +1,7 @@
 /**
  * `tallyline plan`: designs a sequential plan and prints it, as JSON (--json) or as readable tables.
  */
-import { designAnyPlan, designPlan, isExtendedPlanSpec } from '../engine/index.js';
+import { checkAnyPlanSpec, designAnyPlan, designPlan, isExtendedPlanSpec } from '../engine/index.js';
 import type { LimitRow, PlanDesign, PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
@@ -26,6 +26,7 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     const spec = anyPlanSpecFromFlags(values);
+    checkAnyPlanSpec(spec, { curvePoints: values.points ?? 51 });
     if (values.json) {
       io.stdout(`${JSON.stringify(designAnyPlan(spec, { curvePoints: values.points ?? 51 }), null, 2)}\n`);
     } else if (isExtendedPlanSpec(spec)) {

@@ -60,7 +60,7 @@ export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
   };
 }
 
-// ---- Models with their own design path (issue 8): measurement, lifetime, graded. ----
+// ---- Models with their own design path: measurement, lifetime, graded. ----
 
 const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -121,7 +121,7 @@ export const modelPlanFlags = {
   'max-time': flag.positive(),
   'max-failures': flag.integer(1),
   classes: classNamesFlag,
-  unit: flag.text('a unit, e.g. mm or unit-hours'),
+  unit: flag.text('A unit (e.g. mm or unit-hours)', 40),
 };
 
 export const modelPlanFlagsUsage = [

@@ -10,7 +10,7 @@ import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsa
 import { replayExtended } from './replayModels.js';
 import { formatNumber, formatTable } from './table.js';
 
-const flags = { ...modelPlanFlags, results: flag.text('a file path, or - for standard input'), json: flag.switch() };
+const flags = { ...modelPlanFlags, results: flag.path('a file path, or - for standard input'), json: flag.switch() };
 
 const PASS_FAIL_WORDS: Record<string, number> = { pass: 0, fail: 1, '0': 0, '1': 1 };
 

@@ -2,41 +2,75 @@
  * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
+import { stat } from 'node:fs/promises';
 import os from 'node:os';
-import { checkAnyPlanSpec } from '../engine/index.js';
+import { checkAnyPlanSpec, type AnyPlanSpec } from '../engine/index.js';
 import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
-import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store/index.js';
+import { PlanRepository, SourceRepository, layout, resolveDataDirectory } from '../store/index.js';
+import { visibleJson, visibleText } from '../store/textFields.js';
 import type { Command } from './command.js';
-import { EXIT_OK } from './command.js';
+import { CliFailure, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
 import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
 
 /** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
-export const dataDirectoryFlags = { 'data-dir': flag.text('a folder') };
+export const dataDirectoryFlags = { 'data-dir': flag.path('a folder') };
 
 /** The data directory for these args: --data-dir, then TALLYLINE_DATA, then the OS app-data folder. */
 export function dataDirectoryFor(args: readonly string[]): string {
   return resolveDataDirectory({ argv: args, env: process.env, platform: process.platform, home: os.homedir() });
 }
 
-/** The data directory for these args, and a run service on it that the caller must close. */
-export function runServiceFor(args: readonly string[]): { dataDirectory: string; service: RunService } {
+/**
+ * The data directory for these args, checked before anything reads or writes it: it must be a
+ * folder; with `mayCreate` it may also not exist yet (the first run, the demo, a restore).
+ *
+ * @throws CliFailure naming the folder and what is wrong with it.
+ */
+export async function checkedDataDirectory(args: readonly string[], mayCreate = false): Promise<string> {
   const dataDirectory = dataDirectoryFor(args);
+  let stats;
+  try {
+    stats = await stat(dataDirectory);
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT' && mayCreate) return dataDirectory;
+    if (code === 'ENOENT') throw new CliFailure(`the data folder ${dataDirectory} does not exist (give --data-dir an existing folder)`);
+    if (code === 'ENOTDIR') throw new CliFailure(`the data folder ${dataDirectory} is inside a file, not a folder`);
+    throw error;
+  }
+  if (!stats.isDirectory()) throw new CliFailure(`the data folder ${dataDirectory} is a file, not a folder`);
+  return dataDirectory;
+}
+
+/** Refuses a run id with no journal in the data folder, before anything opens it. */
+export async function requireExistingRun(dataDirectory: string, runId: string): Promise<void> {
+  try {
+    await stat(layout.runJournal(dataDirectory, runId));
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === 'ENOENT') throw new CliFailure(`there is no run ${runId} in the data folder ${dataDirectory}`);
+    throw error;
+  }
+}
+
+/** The checked data directory for these args, and a run service on it that the caller must close. */
+export async function runServiceFor(args: readonly string[], mayCreate = false): Promise<{ dataDirectory: string; service: RunService }> {
+  const dataDirectory = await checkedDataDirectory(args, mayCreate);
   return { dataDirectory, service: createRunService({ dataDirectory }) };
 }
 
 const startFlags = {
   ...modelPlanFlags,
   ...dataDirectoryFlags,
-  plan: flag.text('a saved plan id'),
+  plan: flag.id('plan'),
   'plan-version': flag.integer(1),
-  'plan-name': flag.text('a plan name'),
-  source: flag.text('a source name'),
-  lot: flag.text('a lot or batch id'),
+  'plan-name': flag.text('A plan name'),
+  source: flag.text('A source name'),
+  lot: flag.text('A lot or batch id'),
   'lot-size': flag.integer(1),
-  inspector: flag.text('a name'),
-  note: flag.text('a note'),
+  inspector: flag.text("The inspector's name"),
+  note: flag.note(),
   json: flag.switch(),
 };
 
@@ -58,28 +92,42 @@ export const startCommand: Command = {
     const values = parseFlags(args, startFlags);
     const sourceName = requireFlag<string>(values, 'source', startFlags);
     const lot = requireFlag<string>(values, 'lot', startFlags);
-    const { dataDirectory, service } = runServiceFor(args);
+    // Every input is checked before anything is written: the plan (saved or from flags), then the folder.
+    let inlineSpec: AnyPlanSpec | null = null;
+    if (values.plan !== undefined) {
+      rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
+    } else {
+      if (values.model === undefined) {
+        throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
+      }
+      rejectFlags(values, ['plan-version'], 'applies to --plan only');
+      // Only the plan flags: the spec reader refuses any flag that is not its model's.
+      const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
+      inlineSpec = anyPlanSpecFromFlags(planValues);
+      checkAnyPlanSpec(inlineSpec);
+    }
+    const { dataDirectory, service } = await runServiceFor(args, true);
     try {
+      const plans = new PlanRepository(dataDirectory);
+      if (values.plan !== undefined) {
+        const versions = await plans.versions(values.plan).catch((): number[] => []);
+        if (versions.length === 0) throw new CliFailure(`there is no saved plan ${values.plan} in the data folder ${dataDirectory}`);
+        const version = values['plan-version'];
+        if (version !== undefined && !versions.includes(version)) {
+          throw new CliFailure(`plan ${values.plan} has no version ${version} (it has ${versions.join(', ')})`);
+        }
+      }
       const { source } = await new SourceRepository(dataDirectory).findOrCreate(sourceName);
       let planId: string;
       let planVersion: number | undefined;
-      if (values.plan !== undefined) {
-        rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
-        planId = values.plan;
+      if (inlineSpec === null) {
+        planId = values.plan as string;
         planVersion = values['plan-version'];
       } else {
-        if (values.model === undefined) {
-          throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
-        }
-        rejectFlags(values, ['plan-version'], 'applies to --plan only');
-        // Only the plan flags: the spec reader refuses any flag that is not its model's.
-        const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
-        const spec = anyPlanSpecFromFlags(planValues);
-        checkAnyPlanSpec(spec);
-        const saved = await new PlanRepository(dataDirectory).save({
-          name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
+        const saved = await plans.save({
+          name: values['plan-name'] ?? `${sourceName} ${inlineSpec.model} plan`,
           sourceId: source.id,
-          spec,
+          spec: inlineSpec,
         });
         planId = saved.id;
         planVersion = saved.version;
@@ -101,7 +149,7 @@ export const startCommand: Command = {
   },
 };
 
-const showFlags = { ...dataDirectoryFlags, run: flag.text('a run id'), json: flag.switch() };
+const showFlags = { ...dataDirectoryFlags, run: flag.id('run'), json: flag.switch() };
 
 /**
  * The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}},
@@ -146,20 +194,24 @@ export const showCommand: Command = {
   async run(args, io) {
     const values = parseFlags(args, showFlags);
     const runId = requireFlag<string>(values, 'run', showFlags);
-    const { service } = runServiceFor(args);
+    const { dataDirectory, service } = await runServiceFor(args);
     try {
+      await requireExistingRun(dataDirectory, runId);
       const view = await service.readRun(runId);
       if (values.json === true) {
-        io.stdout(`${JSON.stringify(showJson(view))}\n`);
+        io.stdout(`${visibleJson(showJson(view))}\n`);
       } else {
         const { run, state } = view;
+        // Text from the journal is escaped: records written before the printable rule may hold control characters.
         io.stdout(
           [
             `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
             `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
             ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
             ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
-          ].join('\n') + '\n',
+          ]
+            .map(visibleText)
+            .join('\n') + '\n',
         );
       }
       return EXIT_OK;

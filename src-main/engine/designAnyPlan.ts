@@ -14,6 +14,7 @@ import { measurementPlan } from './models/measurement.js';
 import { designMeasurementPlan } from './models/measurementDesign.js';
 import type { MeasurementDesign } from './models/measurementDesign.js';
 import type { PlanDesign } from './planDesignTypes.js';
+import { checkPlanWork } from './planWork.js';
 import type { AnyPlanSpec, ExtendedPlanSpec } from './spec.js';
 import { waldBoundaries } from './waldBoundaries.js';
 
@@ -35,6 +36,7 @@ export function isExtendedPlanSpec(spec: AnyPlanSpec): spec is ExtendedPlanSpec 
  * @throws PlanParameterError for an invalid spec or curvePoints.
  */
 export function designAnyPlan(spec: AnyPlanSpec, options: { curvePoints?: number } = {}): AnyPlanDesign {
+  checkAnyPlanSpec(spec, options);
   switch (spec.model) {
     case 'measurement':
       return designMeasurementPlan(spec, options);
@@ -48,13 +50,17 @@ export function designAnyPlan(spec: AnyPlanSpec, options: { curvePoints?: number
 }
 
 /**
- * Checks a spec of any model with its factory, without designing it: cheap, for saving and importing.
+ * Checks a spec of any model without designing it, in well under a millisecond: its model's factory
+ * (ranges, truncation and failure bounds), then the size of its runs and of its design
+ * (checkPlanWork). The one check for the CLI, the channels, plan files, restore and journal replay.
  *
+ * @param options.curvePoints the qualities the design will compute (default 51).
  * @throws PlanParameterError naming the parameter, its value and what is allowed.
  */
-export function checkAnyPlanSpec(spec: AnyPlanSpec): void {
+export function checkAnyPlanSpec(spec: AnyPlanSpec, options: { curvePoints?: number } = {}): void {
   if (spec.model === 'measurement') measurementPlan(spec);
   else if (spec.model === 'lifetime') lifetimePlan(spec);
   else if (spec.model === 'graded') gradedPlan(spec);
   else waldBoundaries(spec);
+  checkPlanWork(spec, options.curvePoints ?? 51);
 }

@@ -41,7 +41,7 @@ export { liveState, decide } from './liveState.js';
 export type { LiveState, QuickDecision } from './liveState.js';
 export { createPlanEvaluator } from './planEvaluator.js';
 export type { PlanEvaluator } from './planEvaluator.js';
-// Models whose evidence is not one integer count per item (issue 8): each has its own design path.
+// Models whose evidence is not one integer count per item: each has its own design path.
 export type { MeasurementSpec, LifetimeSpec, GradedSpec, ExtendedPlanSpec, AnyPlanSpec } from './spec.js';
 export { measurementPlan, decideMeasurement, measurementBoundaries, measurementKl, measurementWaldPoint, SIEGMUND_RHO } from './models/measurement.js';
 export type { MeasurementPlan, MeasurementBoundaries, MeasurementDecision } from './models/measurement.js';
@@ -60,3 +60,5 @@ export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptio
 export { designAnyPlan, checkAnyPlanSpec, isExtendedPlanSpec } from './designAnyPlan.js';
 export type { AnyPlanDesign } from './designAnyPlan.js';
 export { measurementLimitRows, lifetimeLimitRows, gradedLimitRows } from './models/extendedLimitRows.js';
+export { checkPlanWork, estimatePlanWork, PLAN_LIMITS } from './planWork.js';
+export type { PlanWorkEstimate } from './planWork.js';

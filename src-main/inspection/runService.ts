@@ -14,7 +14,8 @@ import {
   analyseJournal,
   checkId,
   folderNames,
-  journalHolder,
+  liveLockOwner,
+  lockPathFor,
   layout,
   newId,
   type JournalProblem,
@@ -298,8 +299,8 @@ export function createRunService(options: RunServiceOptions) {
     /** Whether another live process holds the run's journal for writing (reads only its lock file). */
     async heldElsewhere(runId: string): Promise<boolean> {
       if (open.has(checkId('run', runId))) return false;
-      const holder = await journalHolder(layout.runJournal(dataDirectory, runId));
-      return holder !== null && holder !== process.pid;
+      const holder = await liveLockOwner(lockPathFor(layout.runJournal(dataDirectory, runId)));
+      return holder !== null && holder.pid !== process.pid;
     },
 
     /** A run as it is on disk, without taking its lock or repairing anything (for viewers and `run show`). */

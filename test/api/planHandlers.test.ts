@@ -104,9 +104,11 @@ describe('saving, versions, export and import', () => {
     expect(!result.ok && result.message).toMatch(message);
   });
 
-  it('refuses an imported plan the engine refuses, naming the parameter', async () => {
+  it('refuses an imported plan the engine refuses, naming the parameter and the engine\'s reason', async () => {
     const text = JSON.stringify({ format: 'tallyline.plan/1', id: 'plan-1', version: 1, name: 'x', sourceId: null, createdAt: 'x', spec: { ...nistExample, p1: 0.005 } });
-    expect(await dispatch('plan.import', { text })).toMatchObject({ ok: false, code: 'invalid-parameter', field: 'p1' });
+    const answer = await dispatch('plan.import', { text });
+    expect(answer).toMatchObject({ ok: false, code: 'invalid-payload', field: 'file' });
+    expect((answer as { message: string }).message).toMatch(/"spec\.p1".*p1 must be greater than p0/);
   });
 
   it('answers not-found for a plan or version that does not exist', async () => {

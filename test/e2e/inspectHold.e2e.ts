@@ -1,21 +1,21 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { once } from 'node:events';
-import { fileURLToPath } from 'node:url';
+import { compiledCliEntry, repoRoot } from '../cli/runCli.js';
 import { expect, test } from './support/browserHostFixture.js';
 
-const appRoot = fileURLToPath(new URL('../..', import.meta.url));
-const cli = (args: string[]) => [process.execPath, ['--import', 'tsx', 'src-main/cli.ts', ...args]] as const;
+/** The compiled command line under plain Node, as the installed app's `tallyline` runs it. */
+const cli = (args: string[]) => [process.execPath, [compiledCliEntry, ...args]] as const;
 
 test('a run shown read-only while a command-line feed holds it becomes writable when the feed lets go', async ({ page, host }) => {
   // The NIST/SEMATECH e-Handbook §6.2.6 example plan (from memory); one pass leaves it undecided.
   const plan = ['--model', 'passfail', '--p0', '0.01', '--p1', '0.1', '--alpha', '0.05', '--beta', '0.1'];
   const [node, startArgs] = cli(['run', 'start', ...plan, '--source', 'Acme Castings', '--lot', 'F-1', '--data-dir', host.dataDirectory, '--json']);
-  const started = spawnSync(node, startArgs, { cwd: appRoot, encoding: 'utf8' });
+  const started = spawnSync(node, startArgs, { cwd: repoRoot, encoding: 'utf8' });
   expect(started.status, started.stderr).toBe(0);
   const runId = JSON.parse(started.stdout).run as string;
 
   const [, feedArgs] = cli(['feed', '--run', runId, '--data-dir', host.dataDirectory, '--json']);
-  const feed = spawn(node, feedArgs, { cwd: appRoot, stdio: ['pipe', 'pipe', 'pipe'] });
+  const feed = spawn(node, feedArgs, { cwd: repoRoot, stdio: ['pipe', 'pipe', 'pipe'] });
   feed.stdin.write('pass\n');
   await new Promise<void>((resolve) => feed.stdout.on('data', (chunk: Buffer) => chunk.toString().includes('"seq"') && resolve()));
 

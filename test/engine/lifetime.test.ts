@@ -157,7 +157,7 @@ describe('lifetime model (exponential MTBF)', () => {
   it.each([
     ['theta1', { theta1: 3 }, /theta1 must be less than theta0/],
     ['maxTime', { maxTime: -1 }, /maxTime must be a number greater than 0/],
-    ['maxFailures', { maxFailures: 1.5 }, /maxFailures must be an integer >= 1/],
+    ['maxFailures', { maxFailures: 1.5 }, /maxFailures must be an integer from 1 to 10000 or none/],
   ])('rejects a bad %s with PlanParameterError naming it', (_, change, message) => {
     const call = () => lifetimePlan({ ...spec(2, 0.1), ...change } as LifetimeSpec);
     expect(call).toThrow(PlanParameterError);

@@ -152,7 +152,7 @@ describe('measurement model (normal mean, sigma known)', () => {
   it.each([
     ['sigma', { sigma: 0 }, /sigma must be a number greater than 0/],
     ['mu1', { mu1: 0 }, /mu1 must differ from mu0/],
-    ['truncation', { truncation: 0 }, /truncation must be a positive integer/],
+    ['truncation', { truncation: 0 }, /truncation must be an integer from 1 to 100000/],
     ['overshootCorrection', { mu1: 6, overshootCorrection: true }, /overshootCorrection would pull a limit past 0/],
   ])('rejects a bad %s with PlanParameterError naming it', (parameter, change, message) => {
     const call = () => measurementPlan({ ...spec(0.05, 0.1, 1), ...change } as MeasurementSpec);

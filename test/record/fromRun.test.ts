@@ -4,7 +4,7 @@ import { designPlan } from '../../src-main/engine/index.js';
 import { estimateAfterStop } from '../../src-main/engine/estimation/index.js';
 import { layout, verifyJournal } from '../../src-main/store/index.js';
 import { decisionRecordForRun, recordIdFor } from '../../src-main/record/fromRun.js';
-import { fingerprintFromPdf, pdfText } from '../../src-main/record/fingerprintFromPdf.js';
+import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
 import { formatNumber } from '../../src-main/record/format.js';
 import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
 import type { DecisionRecordInput } from '../../src-main/record/recordInput.js';
@@ -20,7 +20,7 @@ import {
   sourceWithPlan,
   type RecordWorkspace,
 } from './fromRunFixtures.js';
-import { flatten, isStruckThrough, pageGeometry, renderPageToPng } from './pdfInspection.js';
+import { flatten, isStruckThrough, pageGeometry, pdfText, renderPageToPng } from './pdfInspection.js';
 
 describe('the decision record of a decided run made through the run service', () => {
   let space: RecordWorkspace;

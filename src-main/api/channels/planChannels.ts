@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { idSchema } from '../../store/ids.js';
+import { shortText } from '../../store/textFields.js';
 import type { AnyPlanDesign, AnyPlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
 import { planSpecSchemas } from '../../store/planSpecSchema.js';
 import type { PlanVersion } from '../../store/plans.js';
@@ -13,7 +15,7 @@ export const linearPlanSpecSchema = channelSpecSchemas.linear;
 /** The plan parameters of every model as they cross a channel (IPC, HTTP). */
 export const planSpecSchema = channelSpecSchemas.any;
 
-const planId = z.string().min(1).max(80);
+const planId = idSchema('plan');
 const nothing = z.null().optional();
 
 /** Largest plan file the import accepts, in characters; real ones are under 1 kB. */
@@ -48,11 +50,11 @@ export const planChannels = {
   'plan.save': {
     input: z.object({
       id: planId.optional(),
-      name: z.string().trim().min(1, 'A plan needs a name.').max(120),
+      name: shortText('A plan name', 'A plan needs a name.'),
       source: z
         .union([
-          z.object({ id: z.string().min(1).max(80) }),
-          z.object({ name: z.string().trim().min(1, 'A source needs a name.').max(120), kind: z.enum(['supplier', 'line', 'machine']) }),
+          z.object({ id: idSchema('source') }),
+          z.object({ name: shortText('A source name', 'A source needs a name.'), kind: z.enum(['supplier', 'line', 'machine']) }),
         ])
         .nullable(),
       /** The source's part this plan checks, and its characteristic (a run's record prints both). */

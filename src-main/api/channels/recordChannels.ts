@@ -1,11 +1,12 @@
 import { z } from 'zod';
+import { idSchema } from '../../store/ids.js';
 import type { AnyPlanSpec } from '../../engine/index.js';
 import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
 import type { HistoryRow, RunHistory } from '../../record/runHistory.js';
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 
 /** Run ids become file names: the same characters the store allows. */
-const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
+const runId = idSchema('run');
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.');
 
 /** Channels of the Records place: the run history, one run read-only, its record and its entries. */
@@ -14,7 +15,7 @@ export const recordChannels = {
   'record.history': {
     input: z
       .object({
-        sourceId: z.string().min(1).max(80).optional(),
+        sourceId: idSchema('source').optional(),
         from: day.optional(),
         to: day.optional(),
         decision: z.enum(['accept', 'reject', 'undecided']).optional(),

@@ -1,3 +1,4 @@
+import type { RunService } from '../../inspection/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
@@ -8,6 +9,8 @@ import { createSettingsHandlers } from './settingsHandlers.js';
 /** Where the handlers keep and find data; one per app instance. */
 export interface HandlerContext {
   dataDirectory: string;
+  /** The run service behind the inspection channels; one is made when not given. */
+  runService?: RunService;
 }
 
 /** Every channel's handler, for either adapter. */

@@ -6,6 +6,7 @@ import {
   createRunService,
   resultProblem,
   type RecordOutcome,
+  type RunService,
   type RunView,
 } from '../../inspection/index.js';
 import { PlanRepository, SourceRepository } from '../../store/index.js';
@@ -21,6 +22,8 @@ type InspectionHandlers = Pick<
 
 export interface InspectionHandlerContext {
   dataDirectory: string;
+  /** The run service to use; the app passes its own so it can close the journals on quit. */
+  runService?: RunService;
 }
 
 /** What a handler needs to know of a run between requests: fixed at its start. */
@@ -30,7 +33,7 @@ interface KnownRun {
 }
 
 export function createInspectionHandlers(context: InspectionHandlerContext): InspectionHandlers {
-  const service = createRunService({ dataDirectory: context.dataDirectory });
+  const service = context.runService ?? createRunService({ dataDirectory: context.dataDirectory });
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const known = new Map<string, KnownRun>();

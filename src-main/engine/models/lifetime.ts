@@ -2,7 +2,10 @@ import type { PoissonSprtLines } from '../continuous/poissonSprtExact.js';
 import { PlanParameterError } from '../errors.js';
 import type { Decision } from '../integerLines.js';
 import type { LifetimeSpec } from '../spec.js';
-import { checkInteger, checkRisksAndTruncation } from '../validate.js';
+import { checkRisksAndTruncation } from '../validate.js';
+
+/** Largest failure count at which a test stops (README "Limits"): the limits table and the exact evaluation grow with it. */
+export const MAX_FAILURES = 10_000;
 import { waldLimits } from '../waldBoundaries.js';
 import type { IncrementLaw } from '../numerics/waldExponent.js';
 
@@ -54,7 +57,9 @@ export function lifetimePlan(spec: LifetimeSpec): LifetimePlan {
     throw new PlanParameterError('maxTime', maxTime, 'a number greater than 0 or null');
   }
   const maxFailures = spec.maxFailures ?? null;
-  if (maxFailures !== null) checkInteger('maxFailures', maxFailures, 1);
+  if (maxFailures !== null && (typeof maxFailures !== 'number' || !Number.isInteger(maxFailures) || maxFailures < 1 || maxFailures > MAX_FAILURES)) {
+    throw new PlanParameterError('maxFailures', maxFailures, `an integer from 1 to ${MAX_FAILURES} or none`);
+  }
   if (spec.unit !== undefined && typeof spec.unit !== 'string') throw new PlanParameterError('unit', spec.unit, 'a text');
   const ratio = spec.theta0 / spec.theta1;
   const { lnA, lnB } = waldLimits(spec.alpha, spec.beta);

@@ -4,6 +4,7 @@
  *   fsync'd), median and p99;
  * - journal-reload-10k: read a 10,000-result journal, verify its chain, replay it, recompute the state.
  */
+import { createHash } from 'node:crypto';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -76,7 +77,31 @@ export const cases = [
     repeat: 501,
   }),
   benchCase({
+    name: 'journal-reload-floor-10k',
+    description: 'the least any verifying reload of the same 10,000-result run must do: read, split into lines, one SHA-256 and one JSON.parse per line',
+    setup: () => {
+      const journalPath = path.join(benchFolder(), 'run-floor.journal');
+      writeLongRun(journalPath, 'run-floor');
+      return journalPath;
+    },
+    run: (journalPath) => {
+      const lines = readFileSync(journalPath, 'utf8').split('\n');
+      let last = '';
+      let parsed = 0;
+      for (const line of lines) {
+        if (line === '') continue;
+        last = createHash('sha256').update(line).digest('hex');
+        if (JSON.parse(line) !== null) parsed += 1;
+      }
+      if (parsed !== RELOAD_RESULTS + 1) throw new Error('the floor journal has the wrong number of lines');
+      return last;
+    },
+    repeat: 9,
+    warmup: 2,
+  }),
+  benchCase({
     name: 'journal-reload-10k',
+    relativeTo: 'journal-reload-floor-10k',
     description: 'reload a 10,000-result run: read the journal, verify the hash chain, replay the entries, recompute the state',
     setup: () => {
       const folder = benchFolder();
