@@ -95,6 +95,8 @@ export class InspectSession {
   /** A refusal of something other than an entry (void, override, opening). */
   problem = $state<string | null>(null);
   opening = $state(false);
+  /** The run last left with "All runs": its line in the list takes the focus. */
+  lastLeftRunId = $state<string | null>(null);
   readonly draft = new EntryDraft();
   readonly startDraft = new StartDraft();
 
@@ -165,6 +167,7 @@ export class InspectSession {
 
   /** Leaves the active run (it stays as it is on disk) and goes back to the list. */
   leave(): void {
+    this.lastLeftRunId = this.view?.run.id ?? null;
     this.stopWatch();
     this.view = null;
     this.entries = [];
