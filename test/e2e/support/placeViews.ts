@@ -43,6 +43,9 @@ export const placeViews: PlaceView[] = [
     name: 'inspect-mid-run',
     reach: async (page) => {
       await goTo(page, 'Inspect');
+      // A pass/fail plan that is still undecided after 30 passing items.
+      const flangeNut = await page.getByTestId('start-plan').locator('option', { hasText: 'M6 flange nut' }).getAttribute('value');
+      await page.getByTestId('start-plan').selectOption(flangeNut ?? '');
       await page.getByTestId('start-lot').fill('SCREEN-1');
       await page.getByTestId('start-inspector').fill('Ana Ruiz');
       await page.getByTestId('start-submit').click();
