@@ -2,7 +2,7 @@
  * `tallyline plan` for the models with their own design path (measurement, lifetime, graded):
  * a short readable summary (the JSON is the engine's design as it is).
  */
-import { designGradedPlan, designLifetimePlan, designMeasurementPlan } from '../engine/index.js';
+import { countOf, designGradedPlan, designLifetimePlan, designMeasurementPlan } from '../engine/index.js';
 import type { ExtendedPlanSpec } from '../engine/index.js';
 import { formatNumber, formatPercent, formatTable } from './table.js';
 
@@ -42,7 +42,7 @@ export function readableExtendedPlan(spec: ExtendedPlanSpec): string {
           ['exact', f(design.exact.alpha), f(design.exact.beta), f(design.exact.expectedTimeH0), f(design.exact.expectedTimeH1)],
         ],
       ),
-      `Fixed-duration test: T = ${f(design.single.time)}, accept with at most ${design.single.acceptFailures} failures ` +
+      `Fixed-duration test: T = ${f(design.single.time)}, accept with at most ${countOf(design.single.acceptFailures, 'failure')} ` +
         `(true risks ${formatPercent(design.single.alpha)} / ${formatPercent(design.single.beta)})`,
       `Truncation: ${design.truncationRule}`,
       '',

@@ -1,7 +1,7 @@
 /**
  * `tallyline replay`: feeds recorded results through a plan, one a line, and stops at the decision.
  */
-import { decide, modelOf } from '../engine/index.js';
+import { countOf, decide, modelOf } from '../engine/index.js';
 import type { PlanSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
@@ -93,7 +93,7 @@ export const command: Command = {
         ['n', 'result', 'total', 'LLR'],
         steps.map((step) => [String(step.n), String(step.result), String(step.total), formatNumber(step.llr)]),
       );
-      io.stdout(`${table}\n\nDecision: ${summary.decision} after ${n} items, total ${total} (${summary.rule})\n`);
+      io.stdout(`${table}\n\nDecision: ${summary.decision} after ${countOf(n, 'item')}, total ${total} (${summary.rule})\n`);
     }
     return EXIT_OK;
   },

@@ -7,6 +7,7 @@
  * on floor/ceil so a point exactly on a line counts as on it. Logarithms are natural.
  */
 export { PlanParameterError } from './errors.js';
+export { countNoun, countOf } from './countWords.js';
 export type { PlanSpec, PassFailSpec, CountSpec, FitMode, ModelName } from './spec.js';
 export type { KlDivergences, ModelDefinition, LinearStatistic } from './models/model.js';
 export { modelNames } from './models/registry.js';

@@ -4,6 +4,7 @@
  * sequential-exact interval exists only for pass/fail and count plans) and each entry's result.
  */
 import {
+  countNoun,
   designGradedPlan,
   designLifetimePlan,
   designMeasurementPlan,
@@ -118,20 +119,20 @@ export function modelEvidence(spec: ExtendedPlanSpec, state: RunState): { rows: 
     const mean = state.mean === null ? 'none yet' : withUnit(state.mean, unit);
     return {
       rows: [['Measurements', formatCount(state.n)], ['Sum of measurements', withUnit(state.sum, unit)], ['Mean', mean]],
-      facts: `${formatCount(state.n)} measurements, mean ${mean}, ${llr}`,
+      facts: `${formatCount(state.n)} ${countNoun(state.n, 'measurement')}, mean ${mean}, ${llr}`,
     };
   }
   if (state.model === 'lifetime') {
     return {
       rows: [['Accumulated test time', withUnit(state.time, unit)], ['Failures', formatCount(state.failures)], ['Entries counted', formatCount(state.n)]],
-      facts: `${withUnit(state.time, unit)} of test time, ${formatCount(state.failures)} failures, ${llr}`,
+      facts: `${withUnit(state.time, unit)} of test time, ${formatCount(state.failures)} ${countNoun(state.failures, 'failure')}, ${llr}`,
     };
   }
   if (state.model === 'graded' && spec.model === 'graded') {
     const counts = spec.classes.map((name, k) => `${name} ${formatCount(state.counts[k])}`).join(', ');
     return {
       rows: [['Items graded', formatCount(state.n)], ['Items per class', counts], ['Demerits', formatNumber(state.demerits)]],
-      facts: `${formatCount(state.n)} items graded (${counts}), ${formatNumber(state.demerits)} demerits, ${llr}`,
+      facts: `${formatCount(state.n)} ${countNoun(state.n, 'item')} graded (${counts}), ${formatNumber(state.demerits)} demerits, ${llr}`,
     };
   }
   throw new Error(`the run's state does not match its ${spec.model} plan`);

@@ -48,6 +48,15 @@ describe('tallyline plan and replay for measurement, lifetime and graded models'
     expect(JSON.parse(classes.stdout)).toMatchObject({ decision: 'reject', n: 3, counts: [0, 0, 3] });
   });
 
+  it('replays the same measured values in two orders to the same decision when their sum lies on the truncation line', async () => {
+    const flags = ['--model', 'measurement', '--mu0', '10', '--mu1', '11', '--sigma', '1', '--alpha', '0.1', '--beta', '0.1', '--truncate', '3'];
+    for (const input of ['10.3\n10.4\n10.8\n', '10.3\n10.8\n10.4\n']) {
+      const replayed = await runCli(['replay', ...flags, '--results', '-', '--json'], { input });
+      // 10.3 + 10.4 + 10.8 = 31.5 = 3 x 10.5 exactly: LLR 0, accepted at the truncation (hand computation).
+      expect(JSON.parse(replayed.stdout)).toMatchObject({ decision: 'accept', n: 3, rule: 'accept at truncation' });
+    }
+  });
+
   const badCases: Array<[string, string[], RegExp]> = [
     ['a graded vector that does not sum to 1', [...graded.slice(0, 4), '--p0', '0.9,0.08,0.03', ...graded.slice(6)], /--p0: p0 must sum to 1/],
     ['a graded vector of the wrong length', [...graded.slice(0, 4), '--p0', '0.9,0.1', ...graded.slice(6)], /--p0 must be 3 probabilities/],

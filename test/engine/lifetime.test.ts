@@ -66,6 +66,25 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(b.firstRejectFailures).toBe(firstReject);
   });
 
+  it('lists no reject time past the maximum test time and ends the limits table at the failure count that always rejects', () => {
+    // d = 2 in unit-hours (theta0 1000, theta1 500), alpha = beta = 0.1, T = 1000: reject time at r failures is
+    // 693.1 r - 2197 (hand computation), so failure 4 rejects until 575.4 and failure 5 at any time up to 1000.
+    const design = designLifetimePlan({ model: 'lifetime', theta0: 1000, theta1: 500, alpha: 0.1, beta: 0.1, maxTime: 1000 });
+    expect(design.limits.map((row) => row.failures)).toEqual([0, 1, 2, 3, 4, 5]);
+    for (const row of design.limits) {
+      if (row.rejectTime !== null) expect(row.rejectTime).toBeLessThanOrEqual(1000);
+      if (row.acceptTime !== null) expect(row.acceptTime).toBeLessThanOrEqual(1000);
+    }
+    expect(design.limits[4].rejectTime).toBeCloseTo(575.4, 1);
+    expect(design.limits[5].rejectTime).toBe(1000);
+  });
+
+  it('states the truncation rule with "at most 1 failure" in the singular', () => {
+    // Accept at T = 1000 iff r <= floor(1000 x (1/500 - 1/1000)/ln 2) = floor(1.44) = 1 (hand computation).
+    const design = designLifetimePlan({ model: 'lifetime', theta0: 1000, theta1: 500, alpha: 0.1, beta: 0.1, maxTime: 1000 });
+    expect(design.truncationRule).toContain('accept with at most 1 failure (LLR <= 0)');
+  });
+
   it('matches the MIL-HDBK-781A PRST accept times at zero failures (from memory, low confidence: +-0.05 theta1)', () => {
     // reference-values CV-15 [M]: plans I-D, III-D, V-D (10/10 %, d = 1.5, 2, 3) accept at about 6.6, 4.40, 3.30.
     expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(1.5, 0.1))).acceptTimeAtZero - 6.6)).toBeLessThan(0.05);

@@ -44,6 +44,18 @@ function simulate(plan: ReturnType<typeof measurementPlan>, mu: number, runs: nu
 }
 
 describe('measurement model (normal mean, sigma known)', () => {
+  it('decides the same on the same values in any order when their sum lies exactly on the truncation line', () => {
+    const plan = measurementPlan({ model: 'measurement', mu0: 10, mu1: 11, sigma: 1, alpha: 0.1, beta: 0.1, truncation: 3 });
+    // The decimals 10.3, 10.4, 10.8 sum to exactly 31.5 = 3 x (10 + 11)/2: LLR 0 accepts at the truncation.
+    const oneOrder = 10.3 + 10.4 + 10.8;
+    const otherOrder = 10.3 + 10.8 + 10.4;
+    expect(oneOrder).not.toBe(otherOrder); // binary addition depends on the order
+    expect(decideMeasurement(plan, 3, oneOrder)).toMatchObject({ decision: 'accept', rule: 'accept at truncation' });
+    expect(decideMeasurement(plan, 3, otherOrder)).toMatchObject({ decision: 'accept', rule: 'accept at truncation' });
+    // Well off the line, the order-free guard changes nothing: 31.5 + 1e-9 is above it.
+    expect(decideMeasurement(plan, 3, 31.5 + 1e-9).decision).toBe('reject');
+  });
+
   // reference-values CV-17 [C]: exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
   // probabilities and 1e-3 relative for ASN, as the notes suggest for [C] values.
   const rows: Array<[number, number, number, number, number, number, number, number]> = [

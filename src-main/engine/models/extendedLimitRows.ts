@@ -34,20 +34,25 @@ export function measurementLimitRows(plan: MeasurementPlan, length: number): Arr
  * failure if T <= rejectTime (null: not possible, or past the maximum time).
  *
  * Method: acceptTime = (r ln d - ln B)/c, rejectTime = (r ln d - ln A)/c, c = 1/theta1 - 1/theta0;
- * at maxFailures every undecided test rejects, so it can still be running until the previous accept time.
+ * at maxFailures every undecided test rejects, so it can still be running until the previous accept time;
+ * no reject time lies past maxTime, and the table ends at the first failure count that rejects at
+ * any time up to maxTime (a test never reaches more failures undecided).
  * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1), §3.
  */
 export function lifetimeLimitRows(plan: LifetimePlan, rows: number): Array<{ failures: number; acceptTime: number | null; rejectTime: number | null }> {
   const limits = [];
+  const maxTime = plan.maxTime ?? Number.POSITIVE_INFINITY;
   for (let r = 0; r <= rows; r++) {
     const accept = acceptTime(plan, r);
     const reject = rejectTime(plan, r);
     const rejectAll = plan.maxFailures !== null && r >= plan.maxFailures;
     limits.push({
       failures: r,
-      acceptTime: rejectAll || (plan.maxTime !== null && accept > plan.maxTime) ? null : accept,
-      rejectTime: rejectAll ? Math.min(acceptTime(plan, r - 1), plan.maxTime ?? Number.POSITIVE_INFINITY) : reject > 0 && r > 0 ? reject : null,
+      acceptTime: rejectAll || accept > maxTime ? null : accept,
+      rejectTime: rejectAll ? Math.min(acceptTime(plan, r - 1), maxTime) : reject > 0 && r > 0 ? Math.min(reject, maxTime) : null,
     });
+    // The r-th failure rejects at any time up to the maximum test time: more failures are never reached.
+    if (reject >= maxTime && r > 0) break;
   }
   return limits;
 }

@@ -7,6 +7,7 @@ import type { Decision } from '../integerLines.js';
 import { waldOperatingPoint } from '../numerics/waldExponent.js';
 import type { GradedSpec } from '../spec.js';
 import { checkInteger } from '../validate.js';
+import { countOf } from '../countWords.js';
 import type { KlDivergences } from './model.js';
 import { decideGraded, gradedBoundaries, gradedIncrementLaw, gradedKl, gradedPlan, gradedQuality } from './graded.js';
 import type { GradedBoundaries, GradedPlan } from './graded.js';
@@ -185,7 +186,7 @@ export function gradedLiveState(spec: GradedSpec, counts: readonly number[]): Gr
   counts.forEach((count, k) => checkInteger(`counts[${k}]`, count, 0));
   const n = counts.reduce((sum, count) => sum + count, 0);
   if (plan.truncation !== null && n > plan.truncation) {
-    throw new PlanParameterError('counts', counts, `at most the truncation ${plan.truncation} items in all`);
+    throw new PlanParameterError('counts', counts, `at most the truncation, ${countOf(plan.truncation, 'item')} in all`);
   }
   const { decision, rule, llr } = decideGraded(plan, counts);
   const boundaries = gradedBoundaries(plan);

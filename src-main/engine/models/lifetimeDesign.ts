@@ -4,6 +4,7 @@ import type { Decision } from '../integerLines.js';
 import { waldOperatingPoint } from '../numerics/waldExponent.js';
 import type { LifetimeSpec } from '../spec.js';
 import { checkInteger } from '../validate.js';
+import { countOf } from '../countWords.js';
 import type { KlDivergences } from './model.js';
 import {
   acceptTime,
@@ -140,7 +141,7 @@ export function lifetimeTruncationRule(plan: LifetimePlan): string {
   if (plan.maxTime !== null) {
     parts.push(
       `at test time ${plan.maxTime}, if no line has been crossed: accept with at most ` +
-        `${truncationAcceptFailures(plan)} failures (LLR <= 0), otherwise reject`,
+        `${countOf(truncationAcceptFailures(plan), 'failure')} (LLR <= 0), otherwise reject`,
     );
   }
   return parts.length === 0 ? 'no truncation: testing continues until a line is crossed' : parts.join('; ');

@@ -180,6 +180,23 @@ export function measurementBoundaries(plan: MeasurementPlan): MeasurementBoundar
   };
 }
 
+/**
+ * Relative size, against the magnitude of n measurements, within which a sum counts as on a line.
+ * Adding the same decimals in another order changes a binary sum in its last bits (10.3 + 10.4 + 10.8
+ * = 31.500000000000004, 10.3 + 10.8 + 10.4 = 31.5); a sum within this guard of a line is on it, so
+ * the same data give the same decision in any order.
+ */
+export const MEASUREMENT_SUM_GUARD = 1e-12;
+
+/**
+ * The LLR guard after n measurements: MEASUREMENT_SUM_GUARD times the sum's scale n (|midpoint| +
+ * |mu1 - mu0| + sigma), in LLR units.
+ */
+function measurementLlrGuard(plan: MeasurementPlan, n: number): number {
+  const scale = n * (Math.abs(plan.midpoint) + Math.abs(plan.shift) + plan.spec.sigma);
+  return MEASUREMENT_SUM_GUARD * scale * Math.abs(plan.llrPerUnit);
+}
+
 /** The decision after n measurements with the given sum. */
 export interface MeasurementDecision {
   decision: Decision;
@@ -191,16 +208,18 @@ export interface MeasurementDecision {
  * The decision after n measurements with their sum.
  *
  * Method: reject iff LLR >= rejectLimit, accept iff LLR <= acceptLimit; at the truncation n_t,
- * accept iff LLR <= 0 (the sum on the acceptable side of n (mu0 + mu1)/2), else reject.
+ * accept iff LLR <= 0 (the sum on the acceptable side of n (mu0 + mu1)/2), else reject. A sum within
+ * MEASUREMENT_SUM_GUARD of a line counts as on it.
  * References: Wald, A. (1947), Sequential Analysis, §3.1; reference-values CV-06 (the truncation
  * rule is a stated choice).
  */
 export function decideMeasurement(plan: MeasurementPlan, n: number, sum: number): MeasurementDecision {
   const llr = measurementLogLikelihoodRatio(plan, n, sum);
-  if (n > 0 && llr >= plan.rejectLimit) return { decision: 'reject', rule: 'rejection line crossed', llr };
-  if (n > 0 && llr <= plan.acceptLimit) return { decision: 'accept', rule: 'acceptance line crossed', llr };
+  const guard = measurementLlrGuard(plan, n);
+  if (n > 0 && llr >= plan.rejectLimit - guard) return { decision: 'reject', rule: 'rejection line crossed', llr };
+  if (n > 0 && llr <= plan.acceptLimit + guard) return { decision: 'accept', rule: 'acceptance line crossed', llr };
   if (plan.truncation !== null && n >= plan.truncation) {
-    return llr <= 0
+    return llr <= guard
       ? { decision: 'accept', rule: 'accept at truncation', llr }
       : { decision: 'reject', rule: 'reject at truncation', llr };
   }
