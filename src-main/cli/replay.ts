@@ -1,8 +1,8 @@
 /**
  * `tallyline replay`: feeds recorded results through a plan, one a line, and stops at the decision.
  */
-import { countOf, decide, modelOf } from '../engine/index.js';
-import type { PlanSpec } from '../engine/index.js';
+import { countOf, decideLinearCount } from '../engine/index.js';
+import type { LinearCountSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
@@ -18,14 +18,14 @@ const PASS_FAIL_WORDS: Record<string, number> = { pass: 0, fail: 1, '0': 0, '1':
  * One result from a line of the results file: pass/fail or 0/1 for pass/fail items, a count of
  * nonconformities for count data; null for a blank or # comment line.
  */
-export function parseResult(spec: PlanSpec, line: string, lineNumber: number): number | null {
+export function parseResult(spec: LinearCountSpec, line: string, lineNumber: number): number | null {
   const text = line.trim();
   if (text === '' || text.startsWith('#')) return null;
   const value =
     spec.model === 'passfail'
       ? PASS_FAIL_WORDS[text.toLowerCase()]
       : /^\d+$/.test(text)
-        ? modelOf(spec).parseObservation(Number(text))
+        ? Number(text)
         : null;
   if (value === undefined || value === null) {
     const allowed = spec.model === 'passfail' ? 'pass, fail, 0 or 1' : 'a whole number of nonconformities >= 0';
@@ -71,8 +71,8 @@ export const command: Command = {
       }
       return EXIT_OK;
     }
-    const spec: PlanSpec = anySpec;
-    let state = decide(spec, 0, 0);
+    const spec: LinearCountSpec = anySpec;
+    let state = decideLinearCount(spec, 0, 0);
     let n = 0;
     let total = 0;
     const steps: ReplayStep[] = [];
@@ -82,7 +82,7 @@ export const command: Command = {
       if (result === null) continue;
       n += 1;
       total += result;
-      state = decide(spec, n, total);
+      state = decideLinearCount(spec, n, total);
       steps.push({ n, result, total, llr: state.llr });
     }
     const summary = { decision: state.decision, n, total, llr: state.llr, rule: state.rule };

@@ -3,7 +3,7 @@
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
 import os from 'node:os';
-import { checkAnyPlanSpec } from '../engine/index.js';
+import { checkPlanSpec } from '../engine/index.js';
 import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
 import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store/index.js';
 import type { Command } from './command.js';
@@ -75,7 +75,7 @@ export const startCommand: Command = {
         // Only the plan flags: the spec reader refuses any flag that is not its model's.
         const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
         const spec = anyPlanSpecFromFlags(planValues);
-        checkAnyPlanSpec(spec);
+        checkPlanSpec(spec);
         const saved = await new PlanRepository(dataDirectory).save({
           name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
           sourceId: source.id,

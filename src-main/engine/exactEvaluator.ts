@@ -1,6 +1,6 @@
 import { neutralCount, rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 /** Exact operating characteristics of the integer plan at one quality. */
 export interface ExactPoint {

@@ -1,7 +1,7 @@
 import { createExactEvaluator } from './exactEvaluator.js';
 import type { ExactPoint } from './exactEvaluator.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 export interface ExactFit {
   h1: number;

@@ -1,5 +1,5 @@
-import type { ModelDefinition } from './models/model.js';
-import type { PlanSpec } from './spec.js';
+import type { LinearCountDefinition } from './models/linearCountDefinition.js';
+import type { LinearCountSpec } from './spec.js';
 
 /** A single sampling plan: inspect n items, accept iff the count is at most c. */
 export interface SinglePlan {
@@ -23,8 +23,8 @@ export interface SinglePlan {
  * @param maxItems the search stops (returns null) beyond this n.
  */
 export function singleSamplingPlan(
-  model: ModelDefinition<PlanSpec>,
-  spec: PlanSpec,
+  model: LinearCountDefinition<LinearCountSpec>,
+  spec: LinearCountSpec,
   maxItems = 1_000_000,
 ): SinglePlan | null {
   const { theta0, theta1 } = model.hypotheses(spec);

@@ -1,6 +1,6 @@
 import { createExactEvaluator } from './exactEvaluator.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 /** How far above nominal the truncated plan's exact risks may be. */
 export const TRUNCATION_RISK_ALLOWANCE = 1.1;

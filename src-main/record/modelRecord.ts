@@ -8,13 +8,18 @@ import {
   designGradedPlan,
   designLifetimePlan,
   designMeasurementPlan,
-  type ExtendedPlanSpec,
+  type GradedSpec,
+  type LifetimeSpec,
+  type MeasurementSpec,
 } from '../engine/index.js';
 import { normalQuantile } from '../engine/numerics/normalDistribution.js';
 import type { ItemResult, RunState } from '../inspection/index.js';
 import { formatCount, formatFixed, formatNumber } from './format.js';
 import { naiveQualityEstimate } from './naiveQualityEstimate.js';
 import type { ModelRecordDetail, QualityEstimate, RecordPlan } from './recordInput.js';
+
+/** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */
+type ModelPartsSpec = MeasurementSpec | LifetimeSpec | GradedSpec;
 
 /** Said on every estimate of these models. */
 export const SEQUENTIAL_INTERVAL_NOTE =
@@ -25,11 +30,11 @@ type PlanFigures = Pick<
   'acceptableQuality' | 'rejectableQuality' | 'producerRiskExact' | 'consumerRiskExact' | 'boundaries' | 'truncation' | 'averageSampleNumberAtAcceptable' | 'averageSampleNumberAtRejectable'
 >;
 
-const unitOf = (spec: ExtendedPlanSpec): string => ('unit' in spec && spec.unit ? spec.unit : spec.model === 'lifetime' ? 'time units' : '');
+const unitOf = (spec: ModelPartsSpec): string => ('unit' in spec && spec.unit ? spec.unit : spec.model === 'lifetime' ? 'time units' : '');
 const withUnit = (value: number, unit: string): string => `${formatNumber(value)}${unit ? ` ${unit}` : ''}`;
 
 /** The plan's figures and its rows in natural units. */
-export function modelPlan(spec: ExtendedPlanSpec): { figures: PlanFigures; rows: ModelRecordDetail['planRows'] } {
+export function modelPlan(spec: ModelPartsSpec): { figures: PlanFigures; rows: ModelRecordDetail['planRows'] } {
   const unit = unitOf(spec);
   if (spec.model === 'measurement') {
     const design = designMeasurementPlan(spec, { curvePoints: 2 });
@@ -112,7 +117,7 @@ export function modelPlan(spec: ExtendedPlanSpec): { figures: PlanFigures; rows:
 }
 
 /** The evidence rows of the decision section and the line under the headline. */
-export function modelEvidence(spec: ExtendedPlanSpec, state: RunState): { rows: ModelRecordDetail['decisionRows']; facts: string } {
+export function modelEvidence(spec: ModelPartsSpec, state: RunState): { rows: ModelRecordDetail['decisionRows']; facts: string } {
   const unit = unitOf(spec);
   const llr = `final LLR ${formatFixed(state.llr)}`;
   if (state.model === 'measurement') {
@@ -149,7 +154,7 @@ export function modelEvidence(spec: ExtendedPlanSpec, state: RunState): { rows: 
  * References: Epstein, B. and Sobel, M. (1953), "Life testing", JASA 48 (chi-square limits for the
  * exponential mean, from memory); Garwood (1936), Biometrika 28; Clopper and Pearson (1934), Biometrika 26.
  */
-export function modelEstimate(spec: ExtendedPlanSpec, state: RunState, confidenceLevel: number): QualityEstimate | null {
+export function modelEstimate(spec: ModelPartsSpec, state: RunState, confidenceLevel: number): QualityEstimate | null {
   if (state.n === 0) return null;
   const unit = unitOf(spec);
   const percent = `${Number((confidenceLevel * 100).toPrecision(3))} %`;
@@ -200,7 +205,7 @@ export function modelEstimate(spec: ExtendedPlanSpec, state: RunState, confidenc
 }
 
 /** One result as the record prints it. */
-export function modelResultText(spec: ExtendedPlanSpec, result: ItemResult): string {
+export function modelResultText(spec: ModelPartsSpec, result: ItemResult): string {
   if (typeof result !== 'object') return String(result);
   const unit = unitOf(spec);
   if ('value' in result) return withUnit(result.value, unit);

@@ -4,7 +4,7 @@
  * its specific message, e.g. "p1 must be greater than p0").
  */
 import { z } from 'zod';
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 
 /** The number schemas a use of the builder wants for each kind of parameter. */
 interface SpecNumbers {
@@ -55,4 +55,4 @@ export const planSpecSchema = planSpecSchemas({
   proportion: z.number().gt(0).lt(1),
   positive: z.number().positive(),
   whole: z.number().int().positive(),
-}).any satisfies z.ZodType<AnyPlanSpec>;
+}).any satisfies z.ZodType<PlanSpec>;

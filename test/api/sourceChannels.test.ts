@@ -7,12 +7,12 @@ import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.j
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
 import type { RestoreReport } from '../../src-main/backup/index.js';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../src-main/engine/index.js';
 import { createRunService } from '../../src-main/inspection/index.js';
 import type { Settings, Source } from '../../src-main/store/index.js';
 
 /** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, reference-values CV-02). */
-const spec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 const folders: string[] = [];
 afterEach(async () => {

@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designGradedPlan, gradedLiveState, gradedPlan } from '../../src-main/engine/index.js';
 import type { GradedSpec } from '../../src-main/engine/index.js';
-import { classCountRecursion } from '../../src-main/engine/graded/classCountExact.js';
-import { simulateGradedSprt } from '../../src-main/engine/graded/gradedSimulation.js';
+import { classCountRecursion } from '../../src-main/engine/models/graded/classCountRecursion.js';
+import { simulateGradedSprt } from '../../src-main/engine/models/graded/gradedSimulation.js';
 
 const threeClass: GradedSpec = {
   model: 'graded', classes: ['conforming', 'minor', 'major'], p0: [0.9, 0.08, 0.02], p1: [0.75, 0.17, 0.08], alpha: 0.05, beta: 0.1,
@@ -101,7 +101,7 @@ describe('graded model (k classes)', () => {
     for (let i = 1; i < design.curve.length; i++) expect(design.curve[i].ocWald).toBeLessThan(design.curve[i - 1].ocWald);
   });
 
-  it('liveState from the counts per class matches the design at the start and decides on the lines', () => {
+  it('linearCountLiveState from the counts per class matches the design at the start and decides on the lines', () => {
     const design = designGradedPlan({ ...threeClass, truncation: 100 }, { curvePoints: 2 });
     const start = gradedLiveState({ ...threeClass, truncation: 100 }, [0, 0, 0]);
     expect(start.probabilityAcceptH1).toBeCloseTo(design.exact?.beta ?? NaN, 12);

@@ -153,7 +153,7 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(fixedDurationRisks(2, 1, time * 0.999, acceptFailures).beta).toBeGreaterThan(0.1);
   });
 
-  it('liveState at (T, r) continues the same test: from (0, 0) it equals the design, and it is memoryless', () => {
+  it('linearCountLiveState at (T, r) continues the same test: from (0, 0) it equals the design, and it is memoryless', () => {
     const s = spec(2, 0.1);
     const design = designLifetimePlan(s, { curvePoints: 2 });
     const start = lifetimeLiveState(s, 0, 0);

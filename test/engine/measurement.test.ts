@@ -147,7 +147,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     for (const p of [1e-6, 0.01, 0.3, 0.9, 0.999]) expect(normalCdf(normalQuantile(p))).toBeCloseTo(p, 14);
   });
 
-  it('liveState reads the evidence (n, sum): decision, next-value thresholds and the look-ahead', () => {
+  it('linearCountLiveState reads the evidence (n, sum): decision, next-value thresholds and the look-ahead', () => {
     const plain = spec(0.05, 0.1, 1);
     const start = measurementLiveState(plain, 0, 0);
     const design = designMeasurementPlan(plain, { curvePoints: 2 });

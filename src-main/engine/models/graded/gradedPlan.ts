@@ -1,10 +1,10 @@
-import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integerLines.js';
-import type { IncrementLaw } from '../numerics/waldExponent.js';
-import type { GradedSpec } from '../spec.js';
-import { checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../waldBoundaries.js';
-import type { KlDivergences } from './model.js';
+import { PlanParameterError } from '../../errors.js';
+import type { Decision } from '../../integerLines.js';
+import type { IncrementLaw } from '../../numerics/waldExponent.js';
+import type { GradedSpec } from '../../spec.js';
+import { checkRisksAndTruncation } from '../../validate.js';
+import { waldLimits } from '../../waldBoundaries.js';
+import type { KlDivergences } from '../linearCountDefinition.js';
 
 /** A validated graded plan: the constants every later call uses. */
 export interface GradedPlan {
@@ -195,4 +195,22 @@ export function decideGraded(plan: GradedPlan, counts: readonly number[]): Grade
       : { decision: 'reject', rule: 'reject at truncation', llr };
   }
   return { decision: 'continue', rule: 'between the lines', llr };
+}
+
+/**
+ * Graded demerit lines for n = 1..length: accept at most `accept` (null: not yet possible), reject
+ * at least `reject`; the truncation row holds the truncation rule (demerits <= slope n accepts).
+ *
+ * Method: D <= slope n - h1 accepts, D >= slope n + h2 rejects (gradedBoundaries).
+ * References: Wald, A. (1947), Sequential Analysis, ch. 5.
+ */
+export function gradedLimitRows(plan: GradedPlan, length: number): Array<{ n: number; accept: number | null; reject: number }> {
+  const boundaries = gradedBoundaries(plan);
+  const rows = [];
+  for (let n = 1; n <= length; n++) {
+    const atTruncation = n === plan.truncation;
+    const accept = boundaries.slope * n - (atTruncation ? 0 : boundaries.h1);
+    rows.push({ n, accept: accept < 0 ? null : accept, reject: boundaries.slope * n + (atTruncation ? 0 : boundaries.h2) });
+  }
+  return rows;
 }

@@ -1,10 +1,10 @@
-import { PlanParameterError } from '../errors.js';
-import type { KlDivergences } from './model.js';
-import type { MeasurementSpec } from '../spec.js';
-import { checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../waldBoundaries.js';
-import { waldOcFromExponent } from '../waldCurve.js';
-import type { Decision } from '../integerLines.js';
+import { PlanParameterError } from '../../errors.js';
+import type { KlDivergences } from '../linearCountDefinition.js';
+import type { MeasurementSpec } from '../../spec.js';
+import { checkRisksAndTruncation } from '../../validate.js';
+import { waldLimits } from '../../waldBoundaries.js';
+import { waldOcFromExponent } from '../../waldCurve.js';
+import type { Decision } from '../../integerLines.js';
 
 /**
  * Siegmund's overshoot constant for normal random walks, rho = -zeta(1/2)/sqrt(2 pi) = 0.58260:
@@ -224,4 +224,24 @@ export function decideMeasurement(plan: MeasurementPlan, n: number, sum: number)
       : { decision: 'reject', rule: 'reject at truncation', llr };
   }
   return { decision: 'continue', rule: 'between the lines', llr };
+}
+
+/**
+ * Measurement lines in sum units for n = 1..length; the truncation row holds the truncation rule.
+ *
+ * Method: sum limit = n (mu0 + mu1)/2 + limit / ((mu1 - mu0)/sigma^2) for the LLR limits in use;
+ * at the truncation both are n (mu0 + mu1)/2 (LLR = 0).
+ * References: Wald, A. (1947), Sequential Analysis, ch. 5.
+ */
+export function measurementLimitRows(plan: MeasurementPlan, length: number): Array<{ n: number; accept: number; reject: number }> {
+  const rows = [];
+  for (let n = 1; n <= length; n++) {
+    const atTruncation = n === plan.truncation;
+    rows.push({
+      n,
+      accept: plan.midpoint * n + (atTruncation ? 0 : plan.acceptLimit / plan.llrPerUnit),
+      reject: plan.midpoint * n + (atTruncation ? 0 : plan.rejectLimit / plan.llrPerUnit),
+    });
+  }
+  return rows;
 }

@@ -1,6 +1,6 @@
-import type { PassFailSpec } from '../spec.js';
-import { checkOrdered, checkProbability, checkRisksAndTruncation } from '../validate.js';
-import type { ModelDefinition } from './model.js';
+import type { PassFailSpec } from '../../spec.js';
+import { checkOrdered, checkProbability, checkRisksAndTruncation } from '../../validate.js';
+import type { LinearCountDefinition } from '../linearCountDefinition.js';
 
 /**
  * Pass/fail items. One observation x is 1 for a nonconforming item, 0 for a conforming one.
@@ -10,7 +10,7 @@ import type { ModelDefinition } from './model.js';
  * References: Wald, A. (1947), Sequential Analysis, Wiley, ch. 5 (binomial case);
  * NIST/SEMATECH e-Handbook of Statistical Methods (2012), §6.2.6.
  */
-export const passFailModel: ModelDefinition<PassFailSpec> = {
+export const passFailDefinition: LinearCountDefinition<PassFailSpec> = {
   name: 'passfail',
   qualityName: 'p',
   qualityUpperLimit: 1,

@@ -1,4 +1,4 @@
-import { PlanParameterError } from '../errors.js';
+import { PlanParameterError } from '../../errors.js';
 
 /** Fixed-duration reliability test: run for `time`, accept iff failures <= `acceptFailures`. */
 export interface FixedDurationPlan {

@@ -1,10 +1,10 @@
-import type { PoissonSprtLines } from '../continuous/poissonSprtExact.js';
-import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integerLines.js';
-import type { LifetimeSpec } from '../spec.js';
-import { checkInteger, checkRisksAndTruncation } from '../validate.js';
-import { waldLimits } from '../waldBoundaries.js';
-import type { IncrementLaw } from '../numerics/waldExponent.js';
+import type { PoissonSprtLines } from './poissonSprtExact.js';
+import { PlanParameterError } from '../../errors.js';
+import type { Decision } from '../../integerLines.js';
+import type { LifetimeSpec } from '../../spec.js';
+import { checkInteger, checkRisksAndTruncation } from '../../validate.js';
+import { waldLimits } from '../../waldBoundaries.js';
+import type { IncrementLaw } from '../../numerics/waldExponent.js';
 
 /** A validated lifetime plan: the constants every later call uses. Times are in the spec's unit. */
 export interface LifetimePlan {
@@ -186,4 +186,32 @@ export function decideLifetime(plan: LifetimePlan, time: number, failures: numbe
       : { decision: 'reject', rule: 'reject at the maximum test time', llr };
   }
   return { decision: 'continue', rule: 'between the lines', llr };
+}
+
+/**
+ * Lifetime lines per failure count r = 0..rows: accept when T reaches acceptTime; reject at the r-th
+ * failure if T <= rejectTime (null: not possible, or past the maximum time).
+ *
+ * Method: acceptTime = (r ln d - ln B)/c, rejectTime = (r ln d - ln A)/c, c = 1/theta1 - 1/theta0;
+ * at maxFailures every undecided test rejects, so it can still be running until the previous accept time;
+ * no reject time lies past maxTime, and the table ends at the first failure count that rejects at
+ * any time up to maxTime (a test never reaches more failures undecided).
+ * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1), §3.
+ */
+export function lifetimeLimitRows(plan: LifetimePlan, rows: number): Array<{ failures: number; acceptTime: number | null; rejectTime: number | null }> {
+  const limits = [];
+  const maxTime = plan.maxTime ?? Number.POSITIVE_INFINITY;
+  for (let r = 0; r <= rows; r++) {
+    const accept = acceptTime(plan, r);
+    const reject = rejectTime(plan, r);
+    const rejectAll = plan.maxFailures !== null && r >= plan.maxFailures;
+    limits.push({
+      failures: r,
+      acceptTime: rejectAll || accept > maxTime ? null : accept,
+      rejectTime: rejectAll ? Math.min(acceptTime(plan, r - 1), maxTime) : reject > 0 && r > 0 ? Math.min(reject, maxTime) : null,
+    });
+    // The r-th failure rejects at any time up to the maximum test time: more failures are never reached.
+    if (reject >= maxTime && r > 0) break;
+  }
+  return limits;
 }

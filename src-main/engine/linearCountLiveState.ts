@@ -8,43 +8,13 @@ import {
   truncationAcceptanceNumber,
 } from './integerLines.js';
 import type { Decision, IntegerLines } from './integerLines.js';
-import { resolvePlan } from './planLines.js';
-import type { ResolvedPlan } from './planLines.js';
-import type { PlanSpec } from './spec.js';
+import { resolvePlan } from './resolvePlan.js';
+import type { ResolvedPlan } from './resolvePlan.js';
+import type { LinearCountSpec } from './spec.js';
 import { checkInteger } from './validate.js';
+import { lookAhead, type LookAhead } from './lookAhead.js';
 
-/** Where a run stands after n items with cumulative count `total`, and where it is likely to go. */
-/**
- * What a run can still expect from where it stands, under H0, H1 and the current estimate: the
- * probability of ending in acceptance and the items (or test time) still to go. Every model's live
- * state carries these.
- */
-export interface LookAhead {
-  probabilityAcceptH0: number;
-  probabilityAcceptH1: number;
-  probabilityAcceptEstimate: number | null;
-  expectedRemainingH0: number;
-  expectedRemainingH1: number;
-  expectedRemainingEstimate: number | null;
-}
-
-/** The look-ahead from exact evaluations (probability of acceptance, remaining items) at H0, H1 and the estimate. */
-export function lookAhead(
-  atH0: { accept: number; asn: number },
-  atH1: { accept: number; asn: number },
-  atEstimate: { accept: number; asn: number } | null,
-): LookAhead {
-  return {
-    probabilityAcceptH0: atH0.accept,
-    probabilityAcceptH1: atH1.accept,
-    probabilityAcceptEstimate: atEstimate === null ? null : atEstimate.accept,
-    expectedRemainingH0: atH0.asn,
-    expectedRemainingH1: atH1.asn,
-    expectedRemainingEstimate: atEstimate === null ? null : atEstimate.asn,
-  };
-}
-
-export interface LiveState extends LookAhead {
+export interface LinearCountLiveState extends LookAhead {
   n: number;
   total: number;
   decision: Decision;
@@ -86,7 +56,7 @@ function checkState(plan: ResolvedPlan, n: number, total: number): void {
  * accept iff total <= floor(s n_t).
  * References: Wald, A. (1947), Sequential Analysis, ch. 3; NIST/SEMATECH e-Handbook §6.2.6.
  */
-export function decide(spec: PlanSpec, n: number, total: number): QuickDecision {
+export function decideLinearCount(spec: LinearCountSpec, n: number, total: number): QuickDecision {
   const plan = resolvePlan(spec);
   checkState(plan, n, total);
   const { decision, rule } = decisionAt(plan.lines, n, total);
@@ -132,7 +102,7 @@ function earliestReject(lines: IntegerLines, bernoulli: boolean, n: number, tota
  *
  * @throws PlanParameterError for an invalid spec, n or total.
  */
-export function liveState(spec: PlanSpec, n: number, total: number): LiveState {
+export function linearCountLiveState(spec: LinearCountSpec, n: number, total: number): LinearCountLiveState {
   const plan = resolvePlan(spec);
   checkState(plan, n, total);
   const { lines, model } = plan;

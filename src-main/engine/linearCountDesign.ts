@@ -2,11 +2,11 @@ import { createExactEvaluator } from './exactEvaluator.js';
 import { acceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
 import type { IntegerLines } from './integerLines.js';
 import { PlanParameterError } from './errors.js';
-import type { CurvePoint, LimitRow, PlanDesign } from './planDesignTypes.js';
-import { resolvePlan } from './planLines.js';
+import type { CurvePoint, LimitRow, LinearCountDesign } from './planDesignTypes.js';
+import { resolvePlan } from './resolvePlan.js';
 import { sampleSizeQuantiles } from './sampleSizeQuantiles.js';
 import { singleSamplingPlan } from './singlePlan.js';
-import type { PlanSpec } from './spec.js';
+import type { LinearCountSpec } from './spec.js';
 import { suggestedTruncation } from './truncation.js';
 import { neutralQuality, waldPoint } from './waldCurve.js';
 
@@ -32,7 +32,7 @@ const LIMITS_SINGLE_MULTIPLE = 3;
  *
  * @throws PlanParameterError for an invalid spec or curvePoints.
  */
-export function designPlan(spec: PlanSpec, options: DesignOptions = {}): PlanDesign {
+export function designLinearCountPlan(spec: LinearCountSpec, options: DesignOptions = {}): LinearCountDesign {
   const curvePoints = options.curvePoints ?? 51;
   if (!Number.isInteger(curvePoints) || curvePoints < 2 || curvePoints > 10001) {
     throw new PlanParameterError('curvePoints', curvePoints, 'an integer from 2 to 10001');
@@ -78,7 +78,7 @@ export function designPlan(spec: PlanSpec, options: DesignOptions = {}): PlanDes
       quantilesH1: sampleSizeQuantiles(atH1.probabilities),
     },
     single,
-    limits: limitRows(lines, limitsLength),
+    limits: linearCountLimitRows(lines, limitsLength),
     curve,
     model: spec.model,
     quality: model.qualityName,
@@ -109,7 +109,7 @@ export function designPlan(spec: PlanSpec, options: DesignOptions = {}): PlanDes
  * most floor(s n_t), reject from one more.
  * References: NIST/SEMATECH e-Handbook §6.2.6 (the table form); reference-values CV-02 and CV-06.
  */
-export function limitRows(lines: IntegerLines, length: number): LimitRow[] {
+export function linearCountLimitRows(lines: IntegerLines, length: number): LimitRow[] {
   const rows: LimitRow[] = [];
   const atTruncation = truncationAcceptanceNumber(lines);
   for (let n = 1; n <= length; n++) {

@@ -1,12 +1,12 @@
-import { createNormalSprtEvaluator } from '../continuous/normalSprtExact.js';
-import { lookAhead, type LookAhead } from '../liveState.js';
-import type { NormalSprtEvaluator } from '../continuous/normalSprtExact.js';
-import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integerLines.js';
-import { normalQuantile } from '../numerics/normalDistribution.js';
-import type { MeasurementSpec } from '../spec.js';
-import { checkInteger } from '../validate.js';
-import type { KlDivergences } from './model.js';
+import { createNormalSprtEvaluator } from './normalSprtExact.js';
+import { lookAhead, type LookAhead } from '../../lookAhead.js';
+import type { NormalSprtEvaluator } from './normalSprtExact.js';
+import { PlanParameterError } from '../../errors.js';
+import type { Decision } from '../../integerLines.js';
+import { normalQuantile } from '../../numerics/normalDistribution.js';
+import type { MeasurementSpec } from '../../spec.js';
+import { checkInteger } from '../../validate.js';
+import type { KlDivergences } from '../linearCountDefinition.js';
 import {
   decideMeasurement,
   measurementBoundaries,
@@ -15,9 +15,9 @@ import {
   measurementPlan,
   measurementWaldPoint,
   SIEGMUND_RHO,
-} from './measurement.js';
-import type { MeasurementBoundaries, MeasurementPlan } from './measurement.js';
-import { measurementLimitRows } from './extendedLimitRows.js';
+} from './measurementPlan.js';
+import type { MeasurementBoundaries, MeasurementPlan } from './measurementPlan.js';
+import { measurementLimitRows } from './measurementPlan.js';
 
 /** One quality on the measurement plan's curves; theta is the true mean. */
 export interface MeasurementCurvePoint {

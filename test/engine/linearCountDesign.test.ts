@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { PlanParameterError, designPlan } from '../../src-main/engine/index.js';
+import { PlanParameterError, designLinearCountPlan } from '../../src-main/engine/index.js';
 import { nist } from './planFixtures.js';
 
-describe('designPlan', () => {
+describe('designLinearCountPlan', () => {
   it('has exactly the keys of the CLI contract, and the extras', () => {
-    const design = designPlan(nist);
+    const design = designLinearCountPlan(nist);
     for (const key of ['boundaries', 'kl', 'wald', 'exact', 'single', 'limits', 'curve']) expect(design).toHaveProperty(key);
     expect(Object.keys(design.boundaries).sort()).toEqual(['h1', 'h2', 'lnA', 'lnB', 'slope']);
     expect(Object.keys(design.wald).sort()).toEqual(['asnH0', 'asnH1', 'asnMax']);
@@ -16,7 +16,7 @@ describe('designPlan', () => {
   });
 
   it('for the NIST example gives single (52, 2) and limits up to 3 x 52 items', () => {
-    const design = designPlan(nist);
+    const design = designLinearCountPlan(nist);
     // reference-values CV-08 [C] and NIST §6.2.6 [V] rule of thumb: truncate at 3 x the single plan's n.
     expect(design.single).toMatchObject({ n: 52, c: 2 });
     expect(design.threeTimesSingle).toBe(156);
@@ -28,7 +28,7 @@ describe('designPlan', () => {
   });
 
   it('puts the truncation rule in the last limits row and in words', () => {
-    const design = designPlan({ ...nist, truncation: 156 });
+    const design = designLinearCountPlan({ ...nist, truncation: 156 });
     expect(design.limits).toHaveLength(156);
     // reference-values CV-06 [C]: at n_t = 156 accept iff d <= floor(s n_t) = 6.
     expect(design.limits[155]).toEqual({ n: 156, accept: 6, reject: 7 });
@@ -38,7 +38,7 @@ describe('designPlan', () => {
   });
 
   it('gives quantiles of the item count consistent with the distribution it returns', () => {
-    const design = designPlan(nist);
+    const design = designLinearCountPlan(nist);
     const cumulative = (values: number[], n: number): number => values.slice(0, n + 1).reduce((a, b) => a + b, 0);
     const { p50, p90, p99 } = design.exact.quantilesH0;
     for (const [quantile, q] of [
@@ -55,7 +55,7 @@ describe('designPlan', () => {
   });
 
   it('runs the curve from quality 0 to twice the rejectable quality, Wald and exact side by side', () => {
-    const design = designPlan(nist, { curvePoints: 11 });
+    const design = designLinearCountPlan(nist, { curvePoints: 11 });
     expect(design.curve.map((point) => point.theta)).toEqual(Array.from({ length: 11 }, (_, i) => (0.2 * i) / 10));
     const atP1 = design.curve[5];
     expect(atP1.ocWald).toBeCloseTo(0.1, 10); // Wald's OC is beta at p1 by construction
@@ -63,7 +63,7 @@ describe('designPlan', () => {
   });
 
   it('rejects a bad number of curve points with a specific error', () => {
-    expect(() => designPlan(nist, { curvePoints: 1 })).toThrow(
+    expect(() => designLinearCountPlan(nist, { curvePoints: 1 })).toThrow(
       new PlanParameterError('curvePoints', 1, 'an integer from 2 to 10001'),
     );
   });

@@ -1,4 +1,4 @@
-import type { PlanSpec } from '../spec.js';
+import type { LinearCountSpec } from '../spec.js';
 
 /** KL divergences per observation, in nats. */
 export interface KlDivergences {
@@ -26,7 +26,7 @@ export type CountStep = 'bernoulli' | 'poisson';
  * plans, live state) works for it. A new model implements this and registers in `registry.ts`;
  * nothing generic changes.
  */
-export interface ModelDefinition<S extends PlanSpec = PlanSpec> {
+export interface LinearCountDefinition<S extends LinearCountSpec = LinearCountSpec> {
   readonly name: S['model'];
   /** Name of the quality parameter in output and messages, e.g. "p" or "lambda". */
   readonly qualityName: string;

@@ -1,15 +1,15 @@
 import { fitExactRisks } from './exactFit.js';
 import type { ExactFit } from './exactFit.js';
 import type { IntegerLines } from './integerLines.js';
-import type { ModelDefinition } from './models/model.js';
-import { validatedModel } from './models/registry.js';
-import type { PlanSpec } from './spec.js';
+import type { LinearCountDefinition } from './models/linearCountDefinition.js';
+import { validatedDefinition } from './models/linearCountDefinitions.js';
+import type { LinearCountSpec } from './spec.js';
 import { waldLimits } from './waldBoundaries.js';
 
 /** A validated plan: its model, Wald's limits, and the integer lines actually used. */
 export interface ResolvedPlan {
-  spec: PlanSpec;
-  model: ModelDefinition<PlanSpec>;
+  spec: LinearCountSpec;
+  model: LinearCountDefinition<LinearCountSpec>;
   lnA: number;
   lnB: number;
   countWeight: number;
@@ -31,8 +31,8 @@ const FIT_CACHE_SIZE = 64;
  * Method: Wald lines as in waldBoundaries; fit as in fitExactRisks.
  * References: Wald, A. (1947), Sequential Analysis, ch. 3.
  */
-export function resolvePlan(spec: PlanSpec): ResolvedPlan {
-  const model = validatedModel(spec);
+export function resolvePlan(spec: LinearCountSpec): ResolvedPlan {
+  const model = validatedDefinition(spec);
   const { lnA, lnB } = waldLimits(spec.alpha, spec.beta);
   const { countWeight, itemOffset } = model.linearStatistic(spec);
   const truncation = spec.truncation ?? null;

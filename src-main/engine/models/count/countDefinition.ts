@@ -1,6 +1,6 @@
-import type { CountSpec } from '../spec.js';
-import { checkOrdered, checkPositive, checkRisksAndTruncation } from '../validate.js';
-import type { ModelDefinition } from './model.js';
+import type { CountSpec } from '../../spec.js';
+import { checkOrdered, checkPositive, checkRisksAndTruncation } from '../../validate.js';
+import type { LinearCountDefinition } from '../linearCountDefinition.js';
 
 /**
  * Nonconformities counted per unit, Poisson with rate lambda per unit. One observation x is the
@@ -11,7 +11,7 @@ import type { ModelDefinition } from './model.js';
  * References: Wald, A. (1947), Sequential Analysis, Wiley, ch. 5 (Poisson case);
  * reference-values CV-14 (Tallyline shared notes).
  */
-export const countModel: ModelDefinition<CountSpec> = {
+export const countDefinition: LinearCountDefinition<CountSpec> = {
   name: 'count',
   qualityName: 'lambda',
   qualityUpperLimit: Number.POSITIVE_INFINITY,

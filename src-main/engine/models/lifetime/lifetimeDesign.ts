@@ -1,11 +1,11 @@
-import { evaluatePoissonSprt } from '../continuous/poissonSprtExact.js';
-import { PlanParameterError } from '../errors.js';
-import type { Decision } from '../integerLines.js';
-import { waldOperatingPoint } from '../numerics/waldExponent.js';
-import type { LifetimeSpec } from '../spec.js';
-import { checkInteger } from '../validate.js';
-import { countOf } from '../countWords.js';
-import type { KlDivergences } from './model.js';
+import { evaluatePoissonSprt } from './poissonSprtExact.js';
+import { PlanParameterError } from '../../errors.js';
+import type { Decision } from '../../integerLines.js';
+import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import type { LifetimeSpec } from '../../spec.js';
+import { checkInteger } from '../../validate.js';
+import { countOf } from '../../countWords.js';
+import type { KlDivergences } from '../linearCountDefinition.js';
 import {
   acceptTime,
   decideLifetime,
@@ -14,11 +14,11 @@ import {
   lifetimePlan,
   remainingLines,
   truncationAcceptFailures,
-} from './lifetime.js';
-import type { LifetimeBoundaries, LifetimePlan } from './lifetime.js';
-import { fixedDurationPlan } from './lifetimeFixedDuration.js';
-import { lifetimeLimitRows } from './extendedLimitRows.js';
-import type { FixedDurationPlan } from './lifetimeFixedDuration.js';
+} from './lifetimePlan.js';
+import type { LifetimeBoundaries, LifetimePlan } from './lifetimePlan.js';
+import { fixedDurationPlan } from './fixedDurationPlan.js';
+import { lifetimeLimitRows } from './lifetimePlan.js';
+import type { FixedDurationPlan } from './fixedDurationPlan.js';
 
 export interface LifetimeCurvePoint {
   /** True MTBF. */

@@ -1,4 +1,4 @@
-import { seededRandom } from '../numerics/seededRandom.js';
+import { seededRandom } from '../../numerics/seededRandom.js';
 
 /** Simulated OC and ASN with their standard errors. */
 export interface SimulatedPoint {

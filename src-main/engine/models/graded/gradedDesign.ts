@@ -1,17 +1,17 @@
-import { PlanParameterError } from '../errors.js';
-import { lookAhead, type LookAhead } from '../liveState.js';
-import { classCountRecursion } from '../graded/classCountExact.js';
-import { simulateGradedSprt } from '../graded/gradedSimulation.js';
-import type { SimulatedPoint } from '../graded/gradedSimulation.js';
-import type { Decision } from '../integerLines.js';
-import { waldOperatingPoint } from '../numerics/waldExponent.js';
-import type { GradedSpec } from '../spec.js';
-import { checkInteger } from '../validate.js';
-import { countOf } from '../countWords.js';
-import type { KlDivergences } from './model.js';
-import { decideGraded, gradedBoundaries, gradedIncrementLaw, gradedKl, gradedPlan, gradedQuality } from './graded.js';
-import type { GradedBoundaries, GradedPlan } from './graded.js';
-import { gradedLimitRows } from './extendedLimitRows.js';
+import { PlanParameterError } from '../../errors.js';
+import { lookAhead, type LookAhead } from '../../lookAhead.js';
+import { classCountRecursion } from './classCountRecursion.js';
+import { simulateGradedSprt } from './gradedSimulation.js';
+import type { SimulatedPoint } from './gradedSimulation.js';
+import type { Decision } from '../../integerLines.js';
+import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import type { GradedSpec } from '../../spec.js';
+import { checkInteger } from '../../validate.js';
+import { countOf } from '../../countWords.js';
+import type { KlDivergences } from '../linearCountDefinition.js';
+import { decideGraded, gradedBoundaries, gradedIncrementLaw, gradedKl, gradedPlan, gradedQuality } from './gradedPlan.js';
+import type { GradedBoundaries, GradedPlan } from './gradedPlan.js';
+import { gradedLimitRows } from './gradedPlan.js';
 
 /** Largest item count the exact recursion runs to (k <= 3); beyond it the design simulates. */
 export const GRADED_EXACT_LIMIT = 400;
