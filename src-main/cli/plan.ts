@@ -5,7 +5,7 @@ import { designPlan } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { readablePlan } from './planText.js';
 
 const flags = { ...modelPlanFlags, points: flag.integer(2, 10001), json: flag.switch() };
@@ -23,7 +23,7 @@ export const command: Command = {
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const spec = anyPlanSpecFromFlags(values);
+    const spec = planSpecFromFlags(values);
     const design = designPlan(spec, { curvePoints: values.points ?? 51 });
     io.stdout(values.json ? `${JSON.stringify(design, null, 2)}\n` : `${readablePlan(spec, design)}\n`);
     return EXIT_OK;

@@ -32,7 +32,7 @@ export const planFlagsUsage = [
  *
  * @throws UsageError for a missing flag or one that belongs to the other model.
  */
-export function planSpecFromFlags(values: Record<string, unknown>): LinearCountSpec {
+function linearCountSpecFromFlags(values: Record<string, unknown>): LinearCountSpec {
   const model = requireFlag<LinearCountSpec['model']>(values, 'model', planFlags);
   const alpha = requireFlag<number>(values, 'alpha', planFlags);
   const beta = requireFlag<number>(values, 'beta', planFlags);
@@ -152,14 +152,14 @@ function unitOf(values: Record<string, unknown>): { unit?: string } {
  *
  * @throws UsageError for a missing flag or one that belongs to another model.
  */
-export function anyPlanSpecFromFlags(values: Record<string, unknown>): PlanSpec {
+export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
   const model = requireFlag<PlanSpec['model']>(values, 'model', modelPlanFlags);
   if (model === 'passfail' || model === 'count') {
     rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes', 'unit'], `does not apply to --model ${model}`);
     for (const name of ['p0', 'p1']) {
       if (Array.isArray(values[name])) throw new UsageError(`--${name}`, 'a number in (0, 1)', `--${name} must be a number in (0, 1) for --model ${model} (got a list)`);
     }
-    return planSpecFromFlags(values);
+    return linearCountSpecFromFlags(values);
   }
   const own = new Set([...OWN_FLAGS[model], 'model', 'alpha', 'beta', 'points', 'json', 'results']);
   const foreign = Object.keys(values).filter((name) => values[name] !== undefined && !own.has(name));

@@ -6,7 +6,7 @@ import type { LinearCountSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { replayExtended } from './replayModels.js';
 import { formatNumber, formatTable } from './table.js';
 
@@ -53,7 +53,7 @@ export const command: Command = {
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const anySpec = anyPlanSpecFromFlags(values);
+    const planSpec = planSpecFromFlags(values);
     const path = requireFlag<string>(values, 'results', flags);
     let text: string;
     try {
@@ -62,8 +62,8 @@ export const command: Command = {
       const reason = (error as NodeJS.ErrnoException).code ?? (error as Error).message;
       throw new UsageError('--results', 'a readable file', `--results: cannot read ${JSON.stringify(path)} (${reason})`);
     }
-    if (anySpec.model === 'measurement' || anySpec.model === 'lifetime' || anySpec.model === 'graded') {
-      const { summary, rows } = replayExtended(anySpec, text);
+    if (planSpec.model === 'measurement' || planSpec.model === 'lifetime' || planSpec.model === 'graded') {
+      const { summary, rows } = replayExtended(planSpec, text);
       if (values.json) io.stdout(`${JSON.stringify(summary)}\n`);
       else {
         const table = formatTable(['step', 'entry', 'evidence', 'LLR'], rows.map((row) => [row[0], row[1], row[2], formatNumber(Number(row[3]))]));
@@ -71,7 +71,7 @@ export const command: Command = {
       }
       return EXIT_OK;
     }
-    const spec: LinearCountSpec = anySpec;
+    const spec: LinearCountSpec = planSpec;
     let state = decideLinearCount(spec, 0, 0);
     let n = 0;
     let total = 0;

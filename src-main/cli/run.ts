@@ -9,7 +9,7 @@ import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
 
 /** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
@@ -74,7 +74,7 @@ export const startCommand: Command = {
         rejectFlags(values, ['plan-version'], 'applies to --plan only');
         // Only the plan flags: the spec reader refuses any flag that is not its model's.
         const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
-        const spec = anyPlanSpecFromFlags(planValues);
+        const spec = planSpecFromFlags(planValues);
         checkPlanSpec(spec);
         const saved = await new PlanRepository(dataDirectory).save({
           name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
