@@ -9,7 +9,7 @@ import { resultTotal } from '../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
 import { modelChart } from './modelChartData.js';
 import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
-import { naiveQualityEstimate } from './naiveQualityEstimate.js';
+import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
 import type {
   BoundaryStep,
   DecisionRecordInput,

@@ -15,7 +15,7 @@ import {
 import { normalQuantile } from '../engine/numerics/normalDistribution.js';
 import type { ItemResult, RunState } from '../inspection/index.js';
 import { formatCount, formatFixed, formatNumber } from './format.js';
-import { naiveQualityEstimate } from './naiveQualityEstimate.js';
+import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
 import type { ModelRecordDetail, QualityEstimate, RecordPlan } from './recordInput.js';
 
 /** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */

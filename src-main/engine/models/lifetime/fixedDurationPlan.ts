@@ -1,3 +1,4 @@
+import { poissonCdf } from '../../distributions/poisson.js';
 import { PlanParameterError } from '../../errors.js';
 
 /** Fixed-duration reliability test: run for `time`, accept iff failures <= `acceptFailures`. */
@@ -7,19 +8,6 @@ export interface FixedDurationPlan {
   /** True risks: 1 - P(accept | theta0) and P(accept | theta1). */
   alpha: number;
   beta: number;
-}
-
-/** P(N <= c) for N ~ Poisson(mean), summed in log space. */
-export function poissonCdf(c: number, mean: number): number {
-  if (mean === 0) return 1;
-  const logMean = Math.log(mean);
-  let logTerm = -mean;
-  let sum = 0;
-  for (let k = 0; k <= c; k++) {
-    sum += Math.exp(logTerm);
-    logTerm += logMean - Math.log(k + 1);
-  }
-  return Math.min(1, sum);
 }
 
 /**

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import jStat from 'jstat';
-import { binomialCdf, naiveQualityEstimate, poissonCdf } from '../../src-main/record/naiveQualityEstimate.js';
+import { binomialCdf } from '../../../src-main/engine/distributions/binomial.js';
+import { poissonCdf } from '../../../src-main/engine/distributions/poisson.js';
+import { naiveQualityEstimate } from '../../../src-main/engine/estimation/naiveQualityEstimate.js';
 
 // Relative tolerance: jstat inverts by iteration to about 1e-10; 1e-6 leaves room without hiding a wrong formula.
 const RELATIVE = 1e-6;

@@ -1,7 +1,18 @@
-import type { QualityEstimate, RecordModel } from './recordInput.js';
+import { binomialCdf } from '../distributions/binomial.js';
+import { poissonCdf } from '../distributions/poisson.js';
+
+/** The naive estimate with its fixed-sample interval, labelled with its method. */
+export interface NaiveQualityEstimate {
+  methodName: string;
+  pointEstimate: number;
+  confidenceLevel: number;
+  lower: number;
+  upper: number;
+  unit: string;
+}
 
 export interface NaiveEstimateCounts {
-  model: RecordModel;
+  model: 'passfail' | 'count';
   itemsInspected: number;
   /** Nonconforming items (passfail) or nonconformities (count) among the counted entries. */
   nonconformities: number;
@@ -10,40 +21,6 @@ export interface NaiveEstimateCounts {
 }
 
 const BISECTION_STEPS = 200;
-
-function logSumExp(a: number, b: number): number {
-  if (a === Number.NEGATIVE_INFINITY) return b;
-  const high = Math.max(a, b);
-  return high + Math.log(Math.exp(a - high) + Math.exp(b - high));
-}
-
-/** P(X <= k) for X ~ Binomial(n, p), summed in log space so long runs do not underflow. */
-export function binomialCdf(k: number, n: number, p: number): number {
-  if (k < 0) return 0;
-  if (k >= n || p <= 0) return 1;
-  if (p >= 1) return 0;
-  let logTerm = n * Math.log1p(-p);
-  let logSum = logTerm;
-  const logOdds = Math.log(p) - Math.log1p(-p);
-  for (let i = 0; i < k; i++) {
-    logTerm += Math.log((n - i) / (i + 1)) + logOdds;
-    logSum = logSumExp(logSum, logTerm);
-  }
-  return Math.min(1, Math.exp(logSum));
-}
-
-/** P(X <= k) for X ~ Poisson(mean), summed in log space. */
-export function poissonCdf(k: number, mean: number): number {
-  if (k < 0) return 0;
-  if (mean <= 0) return 1;
-  let logTerm = -mean;
-  let logSum = logTerm;
-  for (let i = 1; i <= k; i++) {
-    logTerm += Math.log(mean / i);
-    logSum = logSumExp(logSum, logTerm);
-  }
-  return Math.min(1, Math.exp(logSum));
-}
 
 /** The x in [low, high] where a decreasing function crosses `target`, by bisection. */
 function solveDecreasing(f: (x: number) => number, target: number, low: number, high: number): number {
@@ -69,7 +46,7 @@ function checkCounts({ model, itemsInspected, nonconformities, confidenceLevel }
 }
 
 /**
- * A placeholder quality estimate for the decision record until the sequential-exact interval exists:
+ * The naive quality estimate, where the sequential-exact one does not apply (or the run is undecided):
  * the naive fraction d/n (passfail) or rate d/n (count) with an exact fixed-sample interval. It is
  * labelled as ignoring the stopping rule, because a sequential stop biases both.
  *
@@ -80,7 +57,7 @@ function checkCounts({ model, itemsInspected, nonconformities, confidenceLevel }
  * case of the binomial", Biometrika 26; Garwood, 1936, "Fiducial limits for the Poisson distribution",
  * Biometrika 28.
  */
-export function naiveQualityEstimate(counts: NaiveEstimateCounts): QualityEstimate {
+export function naiveQualityEstimate(counts: NaiveEstimateCounts): NaiveQualityEstimate {
   checkCounts(counts);
   const { model, itemsInspected: n, nonconformities: d, confidenceLevel } = counts;
   const tail = (1 - confidenceLevel) / 2;
