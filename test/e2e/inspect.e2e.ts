@@ -3,7 +3,7 @@ import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec }
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 example plan: p0 1 %, p1 10 %, alpha 5 %, beta 10 %
-// (inputs [M], reference-values CV-02). Expected screen values are the engine's own linearCountLiveState,
+// (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
 // computed here on the same (n, total) as the run: the screen must show what the engine says.
 const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 

@@ -17,20 +17,20 @@ describe('designLinearCountPlan', () => {
 
   it('for the NIST example gives single (52, 2) and limits up to 3 x 52 items', () => {
     const design = designLinearCountPlan(nist);
-    // reference-values CV-08 [C] and NIST §6.2.6 [V] rule of thumb: truncate at 3 x the single plan's n.
+    // Montgomery §15.2.3 (first-hand), minimal plans computed independently and NIST §6.2.6 (first-hand) rule of thumb: truncate at 3 x the single plan's n.
     expect(design.single).toMatchObject({ n: 52, c: 2 });
     expect(design.threeTimesSingle).toBe(156);
     expect(design.limits).toHaveLength(156);
     expect(design.limits[0]).toEqual({ n: 1, accept: null, reject: 2 });
-    expect(design.limits[23]).toEqual({ n: 24, accept: 0, reject: 3 }); // NIST §6.2.6 [V]
-    // Exact ASN at H0 30.213 (CV-06 [C]) against 52: saving 1 - 30.213/52.
+    expect(design.limits[23]).toEqual({ n: 24, accept: 0, reject: 3 }); // NIST §6.2.6 (first-hand)
+    // Exact ASN at H0 30.213 (exact recursion over the integer lines (computed independently, checked by simulation)) against 52: saving 1 - 30.213/52.
     expect(design.saving?.h0).toBeCloseTo(1 - 30.213 / 52, 3);
   });
 
   it('puts the truncation rule in the last limits row and in words', () => {
     const design = designLinearCountPlan({ ...nist, truncation: 156 });
     expect(design.limits).toHaveLength(156);
-    // reference-values CV-06 [C]: at n_t = 156 accept iff d <= floor(s n_t) = 6.
+    // exact recursion over the integer lines (computed independently, checked by simulation): at n_t = 156 accept iff d <= floor(s n_t) = 6.
     expect(design.limits[155]).toEqual({ n: 156, accept: 6, reject: 7 });
     expect(design.truncationRule).toContain('at n = 156');
     expect(design.truncationRule).toContain('at most 6');
@@ -50,7 +50,7 @@ describe('designLinearCountPlan', () => {
       expect(cumulative(design.sampleSizeDistribution.h0, quantile)).toBeGreaterThanOrEqual(q - 1e-12);
       expect(cumulative(design.sampleSizeDistribution.h0, quantile - 1)).toBeLessThan(q);
     }
-    // No decision is possible before n = 2 in the NIST plan (CV-02 table), so p50 >= 2.
+    // No decision is possible before n = 2 in the NIST plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand) table), so p50 >= 2.
     expect(p50).toBeGreaterThanOrEqual(2);
   });
 
@@ -59,7 +59,7 @@ describe('designLinearCountPlan', () => {
     expect(design.curve.map((point) => point.theta)).toEqual(Array.from({ length: 11 }, (_, i) => (0.2 * i) / 10));
     const atP1 = design.curve[5];
     expect(atP1.ocWald).toBeCloseTo(0.1, 10); // Wald's OC is beta at p1 by construction
-    expect(atP1.ocExact).toBeCloseTo(0.09958, 5); // reference-values CV-06 [C]
+    expect(atP1.ocExact).toBeCloseTo(0.09958, 5); // exact recursion over the integer lines (computed independently, checked by simulation)
   });
 
   it('rejects a bad number of curve points with a specific error', () => {

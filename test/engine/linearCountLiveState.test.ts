@@ -45,7 +45,7 @@ describe('linearCountLiveState', () => {
 
   it('for count data asks for one more unit carrying enough nonconformities to reach the rejection number', () => {
     const state = linearCountLiveState(counts, 3, 4);
-    // Lines of CV-14 [C]: Re(4) = ceil(1.4427 x 4 + 3.1699) = 9.
+    // Lines of Poisson SPRT lines and exact recursion (computed independently; no published example): Re(4) = ceil(1.4427 x 4 + 3.1699) = 9.
     expect(state.itemsToEarliestReject).toBe(1);
     expect(state.nonconformingToReject).toBe(5);
     expect(decideLinearCount(counts, 4, 9).decision).toBe('reject');
@@ -53,7 +53,7 @@ describe('linearCountLiveState', () => {
   });
 
   it('reports the LLR in nats as k total - b n', () => {
-    // NIST plan, reference-values CV-02 [C]: k = 2.39790 (ln), slope s = b / k = 0.039747.
+    // NIST plan, NIST/SEMATECH e-Handbook §6.2.6 (first-hand): k = 2.39790 (ln), slope s = b / k = 0.039747.
     const state = linearCountLiveState(nist, 50, 2);
     expect(state.llr).toBeCloseTo(2 * 2.3979 - 50 * 0.039747 * 2.3979, 3);
   });

@@ -56,8 +56,8 @@ describe('measurement model (normal mean, sigma known)', () => {
     expect(decideMeasurement(plan, 3, 31.5 + 1e-9).decision).toBe('reject');
   });
 
-  // reference-values CV-17 [C]: exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
-  // probabilities and 1e-3 relative for ASN, as the notes suggest for [C] values.
+  // normal SPRT by the Fredholm integral equation (computed independently): exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
+  // probabilities and 1e-3 relative for ASN, as the notes suggest for values.
   const rows: Array<[number, number, number, number, number, number, number, number]> = [
     // alpha, beta, delta, theta, exact OC, exact ASN, corrected OC, corrected ASN
     [0.05, 0.1, 1, 0, 0.97066, 5.565, 0.97075, 5.299],
@@ -68,7 +68,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     [0.05, 0.05, 0.5, 0, 0.96214, 24.186, 0.96216, 23.927],
     [0.01, 0.01, 0.5, 0, 0.9925, 38.766, 0.99251, 38.506],
   ];
-  it.each(rows)('reproduces CV-17 exact and Siegmund-corrected OC/ASN (alpha %s, beta %s, delta %s, mu %s)', (alpha, beta, delta, mu, oc, asn, ocCorrected, asnCorrected) => {
+  it.each(rows)('reproduces normal SPRT by the Fredholm integral equation (computed independently) exact and Siegmund-corrected OC/ASN (alpha %s, beta %s, delta %s, mu %s)', (alpha, beta, delta, mu, oc, asn, ocCorrected, asnCorrected) => {
     const design = designMeasurementPlan(spec(alpha, beta, delta), { curvePoints: 5 }); // mu = -d/2, 0, d/2, d, 3d/2
     const point = design.curve.find((p) => Math.abs(p.theta - mu) < 1e-12) ?? design.curve[0];
     expect(point.theta).toBeCloseTo(mu, 12);
@@ -78,7 +78,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     expect(point.asnCorrected / asnCorrected).toBeCloseTo(1, 3);
   });
 
-  it('checks the CV-17 exact OC at delta = 1 by a seeded simulation (CV-17 quotes 0.97133 +- 0.00026 from 4e5 runs)', () => {
+  it('checks the normal SPRT by the Fredholm integral equation (computed independently) exact OC at delta = 1 by a seeded simulation (normal SPRT by the Fredholm integral equation (computed independently) quotes 0.97133 +- 0.00026 from 4e5 runs)', () => {
     const plan = measurementPlan(spec(0.05, 0.05, 1));
     const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
     const simulated = simulate(plan, 0, 60000, 17);
@@ -86,21 +86,21 @@ describe('measurement model (normal mean, sigma known)', () => {
     expect(simulated.asn / design.exact.asnH0).toBeCloseTo(1, 1);
   });
 
-  it('gives the fixed-sample n of CV-17/19: ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
-    // reference-values CV-17 "fixed n" column [C].
+  it('gives the fixed-sample n of normal SPRT by the Fredholm integral equation (computed independently) and Wald 1947 ASN against the fixed-sample n (computed independently): ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
+    // normal SPRT by the Fredholm integral equation (computed independently) "fixed n" column.
     expect(designMeasurementPlan(spec(0.05, 0.1, 1), { curvePoints: 2 }).single.exactN).toBeCloseTo(8.564, 3);
     expect(designMeasurementPlan(spec(0.01, 0.01, 0.5), { curvePoints: 2 }).single.exactN).toBeCloseTo(86.59, 2);
-    // CV-19 [C]: Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
+    // Wald 1947 ASN against the fixed-sample n (computed independently): Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
     const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
     expect(design.wald.asnH0 / design.single.exactN).toBeCloseTo(0.4897, 4);
   });
 
-  it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (CV-18, computed)', () => {
+  it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (Siegmund 1985 ch. 3 (from memory; rho computed from zeta(1/2)), computed)', () => {
     expect(SIEGMUND_RHO).toBeCloseTo(0.5826, 4);
   });
 
   it('with the overshoot correction, the exact risks come to nominal (Fredholm, and a seeded simulation)', () => {
-    // Common practice, no source: the corrected limits aim at the nominal risks; Wald's plain limits give 0.029 (CV-17).
+    // Common practice, no source: the corrected limits aim at the nominal risks; Wald's plain limits give 0.029 (normal SPRT by the Fredholm integral equation (computed independently)).
     const corrected = spec(0.05, 0.05, 1, { overshootCorrection: true });
     const design = designMeasurementPlan(corrected, { curvePoints: 2 });
     expect(Math.abs(design.exact.alpha - 0.05)).toBeLessThan(0.003);

@@ -1,5 +1,5 @@
-// Plans the engine tests share. Inputs: NIST/SEMATECH e-Handbook §6.2.6 (reference-values CV-02,
-// inputs [M], reproduced [C]) and Montgomery's item-by-item example (CV-04 [M]).
+// Plans the engine tests share. Inputs: NIST/SEMATECH e-Handbook §6.2.6 (NIST/SEMATECH e-Handbook §6.2.6 (first-hand),
+// inputs (from memory), reproduced) and Montgomery's item-by-item example (Montgomery, Introduction to Statistical Quality Control, §15.5 (from memory) (from memory)).
 import { waldBoundaries } from '../../src-main/engine/index.js';
 import type { IntegerLines, LinearCountSpec } from '../../src-main/engine/index.js';
 

@@ -57,7 +57,7 @@ describe('properties of the exact plan', () => {
   });
 
   it("the untruncated plan's exact alpha + beta stays within nominal alpha + beta (Wald's bound)", () => {
-    // Wald (1947) §3, from memory [M]; reference-values CV-01: alpha' + beta' <= alpha + beta. Common practice.
+    // Wald (1947) §3, from memory (from memory); Wald 1947 ch. 3 (from memory): alpha' + beta' <= alpha + beta. Common practice.
     fc.assert(
       fc.property(anySpec, (spec) => {
         const evaluator = createPlanEvaluator(spec);

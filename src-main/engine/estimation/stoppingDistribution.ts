@@ -80,7 +80,7 @@ function poissonReach(rate: number): number {
  * References: Armitage, P. (1958), "Numerical studies in the sequential estimation of a binomial
  * parameter", Biometrika 45(1/2):1-15 (the boundary distribution of a binomial sequential plan);
  * Jennison, C. and Turnbull, B. W. (2000), Group Sequential Methods with Applications to Clinical
- * Trials, §8.4; reference-values §9 (Tallyline shared notes) for the recursion and its guards.
+ * Trials, §8.4; common practice, no source for the recursion and its guards.
  *
  * @throws PlanParameterError for an invalid spec or options.
  */

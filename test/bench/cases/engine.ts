@@ -1,4 +1,4 @@
-// Engine cases. "exact-curve" is fixed by issue 3: pass/fail, p0 0.05, p1 0.08, alpha 0.05, beta 0.05,
+// Engine cases. "exact-curve" is fixed: pass/fail, p0 0.05, p1 0.08, alpha 0.05, beta 0.05,
 // truncation 3000, exact OC and ASN at 201 evenly spaced p from 0.01 to 0.15.
 import { createPlanEvaluator, designLinearCountPlan, linearCountLiveState } from '../../../src-main/engine/index.js';
 import type { LinearCountSpec } from '../../../src-main/engine/index.js';

@@ -9,7 +9,7 @@ import type { LinearCountDefinition } from '../linearCountDefinition.js';
  * Method: z = x ln(lambda1/lambda0) - (lambda1 - lambda0), so countWeight = ln(lambda1/lambda0)
  * and itemOffset = lambda1 - lambda0.
  * References: Wald, A. (1947), Sequential Analysis, Wiley, ch. 5 (Poisson case);
- * reference-values CV-14 (Tallyline shared notes).
+ * Poisson SPRT lines and exact recursion (computed independently; no published example).
  */
 export const countDefinition: LinearCountDefinition<CountSpec> = {
   name: 'count',

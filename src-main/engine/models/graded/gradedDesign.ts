@@ -73,7 +73,7 @@ function exactApplies(plan: GradedPlan): boolean {
  * exact by classCountRecursion; if an untruncated recursion leaves more than 1e-6 undecided at 400
  * items, the design simulates instead.
  * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3; Aroian, L. A. (1968), Technometrics
- * 10(1); reference-values CV-01, CV-06 (truncation rule).
+ * 10(1); Wald 1947 ch. 3 (from memory), exact recursion over the integer lines (computed independently, checked by simulation) (truncation rule).
  *
  * @throws PlanParameterError for an invalid spec or options.
  */

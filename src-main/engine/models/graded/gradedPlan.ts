@@ -40,7 +40,7 @@ function checkVector(name: 'p0' | 'p1', value: unknown, length: number): asserts
  * Method: z_k = ln(p1_k/p0_k) per item of class k; Wald's ln A, ln B. The second class must point
  * more towards H1 than the first (z_1 > z_0), so the first class is the reference and the second
  * the demerit unit.
- * References: Wald, A. (1947), Sequential Analysis, §3.1 (any likelihood ratio); reference-values CV-01.
+ * References: Wald, A. (1947), Sequential Analysis, §3.1 (any likelihood ratio); Wald 1947 ch. 3 (from memory).
  *
  * @throws PlanParameterError naming the parameter, its value and what is allowed.
  */
@@ -153,7 +153,7 @@ export interface GradedBoundaries {
  * accept iff D <= slope n - h1 and reject iff D >= slope n + h2 with h1 = -ln B/(z_1 - z_0),
  * h2 = ln A/(z_1 - z_0), slope = -z_0/(z_1 - z_0). With two classes these are the pass/fail lines.
  * References: Wald, A. (1947), Sequential Analysis, ch. 5; NIST/SEMATECH e-Handbook §6.2.6 (the
- * two-class case); reference-values CV-02.
+ * two-class case); NIST/SEMATECH e-Handbook §6.2.6 (first-hand).
  */
 export function gradedBoundaries(plan: GradedPlan): GradedBoundaries {
   const unit = plan.weights[1] - plan.weights[0];
@@ -180,7 +180,7 @@ export interface GradedDecision {
  * The decision from the counts per class.
  *
  * Method: reject iff LLR >= ln A, accept iff LLR <= ln B; at the truncation n_t accept iff LLR <= 0.
- * References: Wald, A. (1947), Sequential Analysis, §3.1; reference-values CV-06 (the truncation
+ * References: Wald, A. (1947), Sequential Analysis, §3.1; exact recursion over the integer lines (computed independently, checked by simulation) (the truncation
  * rule is a stated choice).
  */
 export function decideGraded(plan: GradedPlan, counts: readonly number[]): GradedDecision {

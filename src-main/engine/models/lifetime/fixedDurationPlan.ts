@@ -15,7 +15,7 @@ export interface FixedDurationPlan {
  *
  * Method: failures ~ Poisson(time/theta); alpha' = 1 - P(N <= c | theta0), beta' = P(N <= c | theta1).
  * References: MIL-HDBK-781A (1996), fixed-duration test plans (table from memory);
- * reference-values CV-12 (recomputed risks).
+ * MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF) (recomputed risks).
  */
 export function fixedDurationRisks(theta0: number, theta1: number, time: number, acceptFailures: number): { alpha: number; beta: number } {
   return { alpha: 1 - poissonCdf(acceptFailures, time / theta0), beta: poissonCdf(acceptFailures, time / theta1) };
@@ -29,7 +29,7 @@ export function fixedDurationRisks(theta0: number, theta1: number, time: number,
  * Poisson mean, the CDF falls as the mean grows); the first c whose time also meets the producer's
  * point gives the shortest test (that time grows with c).
  * References: Epstein, B. (1960), "Statistical life test acceptance procedures", Technometrics 2(4);
- * reference-values CV-12, CV-13.
+ * MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF), fixed-time demonstration factors (computed independently).
  */
 export function fixedDurationPlan(theta0: number, theta1: number, alpha: number, beta: number): FixedDurationPlan {
   for (let c = 0; c <= 10000; c++) {

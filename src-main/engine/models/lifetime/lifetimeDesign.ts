@@ -63,7 +63,7 @@ const METHOD = 'piecewise-polynomial recursion over failures of the Poisson proc
  * Method: Wald's OC and E[T] from the LLR per unit time (waldOperatingPoint), exact values by
  * evaluatePoissonSprt; the curve covers theta1/2 to 1.5 theta0.
  * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3, ch. 5; Epstein, B. and Sobel, M.
- * (1955), Ann. Math. Statist. 26(1); reference-values CV-12, CV-15, CV-16.
+ * (1955), Ann. Math. Statist. 26(1); MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF), Epstein and Sobel 1955 lines (computed independently), exact recursion over failures (computed independently by a time grid).
  *
  * @throws PlanParameterError for an invalid spec or curvePoints.
  */
@@ -133,7 +133,7 @@ export function designLifetimePlan(spec: LifetimeSpec, options: { curvePoints?: 
  *
  * Method: at the maxFailures-th failure reject; at T = maxTime accept iff LLR <= 0, i.e.
  * r <= floor(maxTime (1/theta1 - 1/theta0)/ln d).
- * References: reference-values CV-06 and §8 (the rule is a stated choice, not MIL-HDBK-781A's).
+ * References: exact recursion over the integer lines (computed independently, checked by simulation) ; MIL-HDBK-781A's truncation is not used (the rule is a stated choice, not MIL-HDBK-781A's).
  */
 export function lifetimeTruncationRule(plan: LifetimePlan): string {
   const parts: string[] = [];
@@ -174,7 +174,7 @@ export interface LifetimeLiveState {
  * Method: decision as in decideLifetime; the accept time at r and the fewest immediate failures
  * with r ln d - c T >= ln A (or reaching maxFailures); P(accept) and expected remaining time by the
  * exact recursion on the lines moved to (T, r) (memoryless), under theta0, theta1 and T/r.
- * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1); reference-values §9.
+ * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1); common practice, no source.
  *
  * @throws PlanParameterError for an invalid spec, time or failures.
  */

@@ -28,7 +28,7 @@ const GUARD = 1e-12;
  *
  * Method: LLR(T, r) = r ln(theta0/theta1) - T (1/theta1 - 1/theta0); Wald's ln A, ln B.
  * References: Epstein, B. and Sobel, M. (1955), "Sequential life tests in the exponential case",
- * Ann. Math. Statist. 26(1); Wald, A. (1947), Sequential Analysis, §3.2; reference-values CV-15.
+ * Ann. Math. Statist. 26(1); Wald, A. (1947), Sequential Analysis, §3.2; Epstein and Sobel 1955 lines (computed independently).
  *
  * @throws PlanParameterError naming the parameter, its value and what is allowed.
  */
@@ -95,8 +95,8 @@ export interface LifetimeBoundaries {
  *
  * Method: accept when T >= (r ln d - ln B)/c, reject at a failure when T <= (r ln d - ln A)/c,
  * c = 1/theta1 - 1/theta0; rejection needs r ln d >= ln A.
- * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1), §3; reference-values
- * CV-15 (computed), MIL-HDBK-781A PRST accept times at zero failures (from memory).
+ * References: Epstein, B. and Sobel, M. (1955), Ann. Math. Statist. 26(1), §3; MIL-HDBK-781A PRST
+ * accept times at zero failures (from memory).
  */
 export function lifetimeBoundaries(plan: LifetimePlan): LifetimeBoundaries {
   return {
@@ -170,7 +170,7 @@ export interface LifetimeDecision {
  * reached the accept line); at the maxFailures-th failure reject; at T = maxTime accept iff
  * LLR <= 0 (r <= T c/ln d), else reject. T beyond maxTime counts as maxTime.
  * References: Wald, A. (1947), Sequential Analysis, §3.1; Epstein, B. and Sobel, M. (1955);
- * reference-values CV-06 (truncation rules are a stated choice) and §8 (MIL truncation not used).
+ * exact recursion over the integer lines (computed independently, checked by simulation) (truncation rules are a stated choice); MIL-HDBK-781A's truncation is not used.
  */
 export function decideLifetime(plan: LifetimePlan, time: number, failures: number): LifetimeDecision {
   const atTime = plan.maxTime === null ? time : Math.min(time, plan.maxTime);

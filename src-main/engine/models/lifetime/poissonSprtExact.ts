@@ -56,7 +56,7 @@ function incompleteGammas(length: number, out: Float64Array): void {
  * probability is below 1e-12.
  * References: Wald, A. (1947), Sequential Analysis, ch. 5 (the exponential case); Epstein, B. and
  * Sobel, M. (1955), "Sequential life tests in the exponential case", Ann. Math. Statist. 26(1),
- * §3 (the boundaries in (T, r)); reference-values CV-16 and §9.
+ * §3 (the boundaries in (T, r)); exact recursion over failures (computed independently by a time grid).
  */
 export function evaluatePoissonSprt(lines: PoissonSprtLines, rate: number): PoissonSprtPoint {
   const degreeCap = Math.ceil((lines.acceptBase - lines.rejectBase) / lines.step) + 4;

@@ -71,7 +71,7 @@ function exactAt(plan: MeasurementPlan, evaluator: NormalSprtEvaluator, mu: numb
  * critical mean mu0 + z_{1-alpha} sigma/sqrt(n) towards mu1; the curve covers mu0 - |d|/2 to
  * mu1 + |d|/2 in the direction of mu1.
  * References: Wald, A. (1947), Sequential Analysis, ch. 5; Siegmund, D. (1985), Sequential
- * Analysis, ch. 3; reference-values CV-17, CV-19.
+ * Analysis, ch. 3; normal SPRT by the Fredholm integral equation (computed independently), Wald 1947 ASN against the fixed-sample n (computed independently).
  *
  * @throws PlanParameterError for an invalid spec or curvePoints.
  */
@@ -153,7 +153,7 @@ export function designMeasurementPlan(spec: MeasurementSpec, options: { curvePoi
  * The truncation rule in words.
  *
  * Method: at n_t accept iff LLR <= 0, i.e. the sum is on mu0's side of n_t (mu0 + mu1)/2.
- * References: reference-values CV-06 (the rule is a stated choice).
+ * References: exact recursion over the integer lines (computed independently, checked by simulation) (the rule is a stated choice).
  */
 export function measurementTruncationRule(plan: MeasurementPlan): string {
   if (plan.truncation === null) return 'no truncation: measuring continues until a line is crossed';
@@ -185,7 +185,7 @@ export interface MeasurementLiveState extends LookAhead {
  * Method: decision as in decideMeasurement; the next value's thresholds from the lines at n + 1;
  * P(accept) and expected remaining measurements from the current LLR by the exact evaluator, under
  * mu0, mu1 and the current mean.
- * References: Wald, A. (1947), Sequential Analysis, ch. 5; reference-values §9.
+ * References: Wald, A. (1947), Sequential Analysis, ch. 5; common practice, no source.
  *
  * @throws PlanParameterError for an invalid spec, n or sum.
  */

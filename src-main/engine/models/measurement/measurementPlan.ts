@@ -9,7 +9,7 @@ import type { Decision } from '../../integerLines.js';
 /**
  * Siegmund's overshoot constant for normal random walks, rho = -zeta(1/2)/sqrt(2 pi) = 0.58260:
  * the expected overshoot of the LLR over a distant limit is about rho times one step's standard
- * deviation. zeta(1/2) = -1.4603545088095868 (reference-values CV-18, computed).
+ * deviation. zeta(1/2) = -1.4603545088095868 (Siegmund 1985 ch. 3 (from memory; rho computed from zeta(1/2)), computed).
  */
 export const SIEGMUND_RHO = 1.4603545088095868 / Math.sqrt(2 * Math.PI);
 
@@ -50,7 +50,7 @@ function checkFinite(parameter: string, value: unknown): asserts value is number
  * back outward by the same amount) equals Wald's nominal one.
  * References: Wald, A. (1947), Sequential Analysis, ch. 5 (normal case); Siegmund, D. (1985),
  * Sequential Analysis: Tests and Confidence Intervals, Springer, ch. 3 (the corrected
- * approximation, from memory); reference-values CV-17, CV-18.
+ * approximation, from memory); normal SPRT by the Fredholm integral equation (computed independently), Siegmund 1985 ch. 3 (from memory; rho computed from zeta(1/2)).
  *
  * @throws PlanParameterError naming the parameter, its value and what is allowed.
  */
@@ -127,7 +127,7 @@ export function measurementDrift(plan: MeasurementPlan, mu: number): number {
  * Method: z ~ N(m, s^2) with m = (mu1 - mu0)(mu - (mu0 + mu1)/2)/sigma^2, s = |mu1 - mu0|/sigma, so
  * E[e^{hz}] = 1 at h = -2m/s^2 = (mu1 + mu0 - 2 mu)/(mu1 - mu0); OC = (A^h - 1)/(A^h - B^h),
  * ASN = (OC ln B + (1 - OC) ln A)/m; at mu = midpoint OC = ln A/(ln A - ln B), ASN = -ln A ln B/s^2.
- * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3 and ch. 5; reference-values CV-17.
+ * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3 and ch. 5; normal SPRT by the Fredholm integral equation (computed independently).
  */
 export function measurementWaldPoint(plan: MeasurementPlan, mu: number, lnA: number, lnB: number): { oc: number; asn: number } {
   const drift = measurementDrift(plan, mu);
@@ -163,7 +163,7 @@ export interface MeasurementBoundaries {
  * Method: LLR <= acceptLimit <=> sum <= n (mu0 + mu1)/2 + acceptLimit sigma^2/(mu1 - mu0) when
  * mu1 > mu0 (reversed when mu1 < mu0); likewise for the rejection line.
  * References: Wald, A. (1947), Sequential Analysis, ch. 5; ISO 3951-5 form (intercepts and slope),
- * reference-values §6.
+ * ISO 3951-5 form (from memory).
  */
 export function measurementBoundaries(plan: MeasurementPlan): MeasurementBoundaries {
   const unitsPerNat = 1 / Math.abs(plan.llrPerUnit);
@@ -210,7 +210,7 @@ export interface MeasurementDecision {
  * Method: reject iff LLR >= rejectLimit, accept iff LLR <= acceptLimit; at the truncation n_t,
  * accept iff LLR <= 0 (the sum on the acceptable side of n (mu0 + mu1)/2), else reject. A sum within
  * MEASUREMENT_SUM_GUARD of a line counts as on it.
- * References: Wald, A. (1947), Sequential Analysis, §3.1; reference-values CV-06 (the truncation
+ * References: Wald, A. (1947), Sequential Analysis, §3.1; exact recursion over the integer lines (computed independently, checked by simulation) (the truncation
  * rule is a stated choice).
  */
 export function decideMeasurement(plan: MeasurementPlan, n: number, sum: number): MeasurementDecision {

@@ -36,8 +36,7 @@ const UNDECIDED_STOP = 1e-13;
  * interpolant. Truncated, the density of the undecided LLR is pushed forward step by step on the
  * same nodes; the last step accepts every path that ends at or below 0.
  * References: Wald, A. (1947), Sequential Analysis, §A.3 (the integral equations); Kress, R.
- * (2014), Linear Integral Equations, 3rd ed., §12.4 (Nystrom method); reference-values CV-17 and
- * §9 (Tallyline shared notes).
+ * (2014), Linear Integral Equations, 3rd ed., §12.4 (Nystrom method).
  */
 export function createNormalSprtEvaluator(lower: number, upper: number, scale: number): NormalSprtEvaluator {
   const panels = Math.max(4, Math.min(60, Math.ceil((upper - lower) / (1.5 * scale))));
