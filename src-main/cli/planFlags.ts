@@ -3,7 +3,7 @@
  * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
  */
 import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
-import { UsageError, flag, rejectFlags, requireFlag } from './flags.js';
+import { PROPORTION_ALLOWED, UsageError, flag, proportionAllowedFor, proportionFromText, rejectFlags, requireFlag } from './flags.js';
 import type { Flag } from './flags.js';
 
 export const planFlags = {
@@ -20,9 +20,9 @@ export const planFlags = {
 
 export const planFlagsUsage = [
   '  --model passfail|count     data model (required)',
-  '  --p0 P --p1 P              passfail: acceptable and rejectable fraction nonconforming, 0 < p0 < p1 < 1',
+  '  --p0 P --p1 P              passfail: acceptable and rejectable fraction nonconforming, 0 < p0 < p1 < 1 (or in percent: 1%)',
   '  --lambda0 L --lambda1 L    count: acceptable and rejectable nonconformities per unit, 0 < lambda0 < lambda1',
-  "  --alpha A --beta B         producer's and consumer's risk, each in (0, 1), alpha + beta < 1",
+  "  --alpha A --beta B         producer's and consumer's risk, each in (0, 1) or in percent (5%), alpha + beta < 1",
   '  --truncate N               decide at N items at the latest (accept iff LLR <= 0 there)',
   "  --fit wald|exact           Wald's lines (default) or lines fitted to the exact risks",
 ].join('\n');
@@ -78,15 +78,15 @@ function numberFlag(name: string, allowed: string, accept: (value: number) => bo
 
 /** A probability, or (graded) a comma-separated list of them; the model decides which it needs. */
 function probabilitiesFlag(name: string): Flag<number | number[]> {
-  const allowed = 'a number in (0, 1)';
   return {
     takesValue: true,
-    allowed,
+    allowed: PROPORTION_ALLOWED,
     parse(raw) {
       const parts = raw.split(',').map((part) => part.trim());
-      const values = parts.map((part) => (NUMBER_TEXT.test(part) ? Number(part) : Number.NaN));
+      const values = parts.map(proportionFromText);
       if (values.some((value) => !(value > 0 && value < 1))) {
-        const what = parts.length > 1 ? 'a comma-separated list of numbers, each in (0, 1)' : allowed;
+        const each = proportionAllowedFor(raw);
+        const what = parts.length > 1 ? `a comma-separated list, each ${each}` : each;
         throw new UsageError(`--${name}`, what, `--${name} must be ${what} (got ${JSON.stringify(raw)})`);
       }
       return parts.length === 1 ? values[0] : values;

@@ -1,6 +1,7 @@
 import type { Page } from '@playwright/test';
 import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
+import { percentText } from '../../src-renderer/src/lib/percent.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 example plan: p0 1 %, p1 10 %, alpha 5 %, beta 10 %
 // (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
@@ -37,10 +38,17 @@ async function expectEngineNumbers(page: Page, live: LinearCountLiveState): Prom
   await expect(page.getByTestId('counted-total')).toHaveText(String(live.total));
   await expect(page.getByTestId('llr')).toHaveText(live.llr.toFixed(3));
   const open = live.decision === 'continue';
-  await expect(page.getByTestId('next-accept')).toHaveText(open ? String(live.itemsToEarliestAccept) : '–');
-  await expect(page.getByTestId('next-reject')).toHaveText(open ? String(live.nonconformingToReject) : '–');
-  await expect(page.getByTestId('p-accept-h0')).toHaveText(live.probabilityAcceptH0.toFixed(3));
-  await expect(page.getByTestId('p-accept-h1')).toHaveText(live.probabilityAcceptH1.toFixed(3));
+  if (!open) {
+    // A decided run has nothing ahead: no odds, no expected remainder restating the decision.
+    await expect(page.getByTestId('look-ahead-closed')).toBeVisible();
+    await expect(page.getByTestId('p-accept-h0')).toHaveCount(0);
+    return;
+  }
+  await expect(page.getByTestId('next-accept')).toHaveText(String(live.itemsToEarliestAccept));
+  await expect(page.getByTestId('next-reject')).toHaveText(String(live.nonconformingToReject));
+  // Probabilities are written for people: in percent, with the sign.
+  await expect(page.getByTestId('p-accept-h0')).toHaveText(percentText(live.probabilityAcceptH0));
+  await expect(page.getByTestId('p-accept-h1')).toHaveText(percentText(live.probabilityAcceptH1));
   await expect(page.getByTestId('asn-h0')).toHaveText(live.expectedRemainingH0.toFixed(1));
   await expect(page.getByTestId('asn-h1')).toHaveText(live.expectedRemainingH1.toFixed(1));
 }

@@ -92,6 +92,8 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   await expect(page.getByTestId('record-n')).toHaveText('2');
   await expect(page.getByTestId('record-total')).toHaveText('2');
   await expect(page.getByTestId('record-estimate')).toContainText('Whitehead 1986');
+  // The estimate is written for people: a fraction nonconforming in percent, with the sign at both ends.
+  await expect(page.getByTestId('estimate-interval')).toHaveText(/^\d+(\.\d+)? % to \d+(\.\d+)? %$/);
   await expect(page.getByTestId('evidence-counts').locator('canvas')).toBeVisible();
   await expect(page.getByTestId('evidence-llr').locator('canvas')).toBeVisible();
   await expect(view.getByRole('textbox')).toHaveCount(0);

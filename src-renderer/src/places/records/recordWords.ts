@@ -7,9 +7,3 @@ export const DECISION_WORDS: Record<HistoryDecision, string> = { accept: 'Accept
 export function recordedTime(iso: string | null): string {
   return iso === null ? '–' : `${iso.slice(0, 10)} ${iso.slice(11, 16)}`;
 }
-
-/** A figure with up to four significant digits and no exponent for everyday sizes. */
-export function significant(value: number): string {
-  if (value === 0) return '0';
-  return Math.abs(value) < 1e-4 ? value.toExponential(2) : String(Number(value.toPrecision(4)));
-}
