@@ -2,6 +2,7 @@ import type { Page } from '@playwright/test';
 import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 import { percentText } from '../../src-renderer/src/lib/percent.js';
+import { ruleText } from '../../src-renderer/src/lib/words.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 example plan: p0 1 %, p1 10 %, alpha 5 %, beta 10 %
 // (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
@@ -115,7 +116,9 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   await expect(page.getByTestId('entry-row')).toHaveCount(12 + toAccept);
   await expect(page.getByTestId('entry-pending')).toHaveCount(0);
   await expectEngineNumbers(page, decided);
-  await expect(page.getByTestId('state-rule')).toContainText(decided.rule);
+  // The engine's rule, written with the proper sign (≤) rather than ASCII.
+  await expect(page.getByTestId('state-rule')).toContainText(ruleText(decided.rule));
+  await expect(page.getByTestId('state-rule')).not.toContainText('<=');
   const logBefore = await page.getByTestId('entry-log').innerText();
   const bannerBefore = await page.getByTestId('state-banner').innerText();
 
