@@ -4,7 +4,7 @@ import { writeFileAtomic } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './run.js';
+import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, out: flag.text('a file to write the archive to'), json: flag.switch() };
 

@@ -8,7 +8,7 @@ import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
 import { recordInputFor, requireRunId } from './record.js';
-import { dataDirectoryFlags } from './run.js';
+import { dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), out: flag.text('a file path, or - for standard output') };
 

@@ -9,7 +9,8 @@ import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags, runServiceFor } from './run.js';
+import { dataDirectoryFlags } from './dataFolderFlag.js';
+import { runServiceFor } from './run.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), actor: flag.text('a name'), json: flag.switch() };
 

@@ -4,13 +4,13 @@
  */
 import { decisionRecordForRun } from '../record/fromRun.js';
 import { writeDecisionRecord } from '../record/renderDecisionRecord.js';
-import { RunJournalUnverifiedError } from '../record/runJournalRead.js';
+import { RunJournalUnverifiedError, RunNotFoundError } from '../inspection/index.js';
 import type { CliIo, Command } from './command.js';
 import type { DecisionRecordInput } from '../record/recordInput.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
 import { checkId } from '../store/index.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './run.js';
+import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), out: flag.text('a file path ending in .pdf') };
 
@@ -45,11 +45,7 @@ export async function recordInputFor(args: readonly string[], runId: string, nam
   try {
     return await decisionRecordForRun(dataDirectoryFor(args), runId);
   } catch (error) {
-    if ((error as NodeJS.ErrnoException).code === 'ENOENT') {
-      io.stderr(`tallyline ${name}: there is no run ${runId} in this data folder\n`);
-      return null;
-    }
-    if (error instanceof RunJournalUnverifiedError) {
+    if (error instanceof RunNotFoundError || error instanceof RunJournalUnverifiedError) {
       io.stderr(`tallyline ${name}: ${error.message}\n`);
       return null;
     }

@@ -2,23 +2,27 @@
  * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
-import os from 'node:os';
 import { checkAnyPlanSpec } from '../engine/index.js';
-import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
-import { PlanRepository, SourceRepository, resolveDataDirectory } from '../store/index.js';
+import {
+  OUTCOME_WORDS,
+  RunNotFoundError,
+  createRunCatalogue,
+  runView,
+  type DecisionEvent,
+  type ItemResult,
+  type RunService,
+  type RunState,
+  type RunView,
+  createRunService,
+} from '../inspection/index.js';
+import { PlanRepository, SourceRepository } from '../store/index.js';
 import type { Command } from './command.js';
-import { EXIT_OK } from './command.js';
+import { EXIT_FAILURE, EXIT_OK } from './command.js';
+import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
 import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { requireRunId } from './record.js';
 import { formatNumber } from './table.js';
-
-/** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
-export const dataDirectoryFlags = { 'data-dir': flag.text('a folder') };
-
-/** The data directory for these args: --data-dir, then TALLYLINE_DATA, then the OS app-data folder. */
-export function dataDirectoryFor(args: readonly string[]): string {
-  return resolveDataDirectory({ argv: args, env: process.env, platform: process.platform, home: os.homedir() });
-}
 
 /** The data directory for these args, and a run service on it that the caller must close. */
 export function runServiceFor(args: readonly string[]): { dataDirectory: string; service: RunService } {
@@ -105,15 +109,30 @@ const showFlags = { ...dataDirectoryFlags, run: flag.text('a run id'), json: fla
 
 /**
  * The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}},
- * the state with its model's fields for measurement (sum, mean), lifetime (time, failures) and graded (counts, demerits).
+ * the state with its model's fields for measurement (sum, mean), lifetime (time, failures) and graded (counts, demerits);
+ * then outcome (open, accepted, rejected, reopened, damaged), history (every decision and reopening), problems
+ * ([{seq, line, problem, kind}], empty when the journal verifies), writable (false for a damaged journal) and
+ * fingerprint (SHA-256 of the journal's last intact line).
  */
-export function showJson(view: RunView): unknown {
+export function showJson(view: RunView, history: readonly DecisionEvent[]): unknown {
   return {
     run: view.run,
     plan: view.plan,
     entries: view.entries.map((entry) => ({ seq: entry.seq, time: entry.time, result: entry.result, voided: entry.voided })),
     state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr, ...modelFields(view.state) },
+    outcome: view.outcome,
+    history,
+    problems: view.problems,
+    writable: view.writable,
+    fingerprint: view.run.fingerprint,
   };
+}
+
+/** A decision or a reopening as a line of `run show`. */
+function historyText(event: DecisionEvent): string {
+  return event.kind === 'decision'
+    ? `  seq ${event.seq}  ${event.at}  ${event.actor}: ${event.decision} (${event.rule})`
+    : `  seq ${event.seq}  ${event.at}  ${event.actor}: ${OUTCOME_WORDS.reopened}: ${event.reason}`;
 }
 
 function modelFields(state: RunState): Record<string, unknown> {
@@ -146,25 +165,35 @@ export const showCommand: Command = {
   async run(args, io) {
     const values = parseFlags(args, showFlags);
     const runId = requireFlag<string>(values, 'run', showFlags);
-    const { service } = runServiceFor(args);
+    requireRunId(runId);
+    let read;
     try {
-      const view = await service.readRun(runId);
-      if (values.json === true) {
-        io.stdout(`${JSON.stringify(showJson(view))}\n`);
-      } else {
-        const { run, state } = view;
-        io.stdout(
-          [
-            `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
-            `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
-            ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
-            ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
-          ].join('\n') + '\n',
-        );
-      }
-      return EXIT_OK;
-    } finally {
-      await service.close();
+      read = await createRunCatalogue(dataDirectoryFor(args)).readRun(runId);
+    } catch (error) {
+      if (!(error instanceof RunNotFoundError)) throw error;
+      io.stderr(`tallyline run show: ${error.message}\n`);
+      return EXIT_FAILURE;
     }
+    if (read.replay === null) {
+      io.stderr(`tallyline run show: run ${runId} is damaged from seq ${read.damage?.firstBadSeq ?? 0} (${read.damage?.problem ?? 'no header'}); nothing of it can be read\n`);
+      return EXIT_FAILURE;
+    }
+    const view = runView(read.replay, { writable: read.damage === null, problems: [...read.problems], recovered: null, fingerprint: read.fingerprint, damage: read.damage });
+    if (values.json === true) {
+      io.stdout(`${JSON.stringify(showJson(view, read.history))}\n`);
+    } else {
+      const { run, state } = view;
+      io.stdout(
+        [
+          `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
+          `Outcome: ${OUTCOME_WORDS[view.outcome]}${read.damage === null ? '' : ` from seq ${read.damage.firstBadSeq}; the entries before it are shown, read-only`}`,
+          `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
+          ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
+          ...(read.history.length === 0 ? [] : ['Decisions:', ...read.history.map(historyText)]),
+          ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
+        ].join('\n') + '\n',
+      );
+    }
+    return EXIT_OK;
   },
 };

@@ -30,7 +30,7 @@
  */
 import { z } from 'zod';
 import type { GradedLiveState, LifetimeLiveState, LimitRow, LiveState, MeasurementLiveState } from '../../engine/index.js';
-import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, type RunView } from '../../inspection/index.js';
+import { itemResultSchema, type RunEntryView, type RunState, type RunRow, type RunView } from '../../inspection/index.js';
 
 /** Run ids become file names: the same characters the store allows. */
 const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
@@ -52,7 +52,7 @@ export const inspectionChannels = {
       note: optionalText(2000),
     }),
   },
-  /** Every run in the data folder, newest first, each journal verified. */
+  /** Every run in the data folder, newest first, from the run catalogue (a damaged journal is one damaged row). */
   'inspection.list': { input: z.null().optional() },
   /** One run with its entries, state and live look-ahead: an unfinished run continues from here. */
   'inspection.open': { input: z.object({ runId }) },
@@ -164,7 +164,7 @@ export interface InspectionStep {
 
 export interface InspectionChannelOutputs {
   'inspection.start': InspectionRunView;
-  'inspection.list': RunSummary[];
+  'inspection.list': RunRow[];
   'inspection.open': InspectionRunView;
   'inspection.record': InspectionStep;
   'inspection.void': InspectionStep;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import type { HistoryRun, SourceSummary } from '../../history/index.js';
+import type { SourceSummary } from '../../history/index.js';
+import type { RunRow } from '../../inspection/index.js';
 import type { Source } from '../../store/sources.js';
 
 const sourceId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A source id is letters, digits, ".", "_" or "-".');
@@ -44,7 +45,7 @@ export interface SourceSummaryView {
   /** Why the pooled figure is not an estimate to act on. */
   caveat: string;
   /** The source's runs, newest first. */
-  runs: HistoryRun[];
+  runs: RunRow[];
 }
 
 export interface SourceChannelOutputs {

@@ -1,3 +1,4 @@
+import { createRunCatalogue, type RunCatalogue } from '../../inspection/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
@@ -8,10 +9,13 @@ import { createSettingsHandlers } from './settingsHandlers.js';
 /** Where the handlers keep and find data; one per app instance. */
 export interface HandlerContext {
   dataDirectory: string;
+  /** The one reader of runs; every place lists and reads runs through it (made here when not given). */
+  catalogue?: RunCatalogue;
 }
 
 /** Every channel's handler, for either adapter. */
-export function createHandlers(context: HandlerContext): ChannelHandlers {
+export function createHandlers(given: HandlerContext): ChannelHandlers {
+  const context = { ...given, catalogue: given.catalogue ?? createRunCatalogue(given.dataDirectory) };
   return {
     ...createPlanHandlers(context),
     ...createInspectionHandlers(context),

@@ -3,7 +3,11 @@ import {
   ResultRefusedError,
   RunClosedError,
   RunNotWritableError,
+  RunNotFoundError,
+  RunUnreadableError,
+  createRunCatalogue,
   createRunService,
+  type RunCatalogue,
   resultProblem,
   type RecordOutcome,
   type RunView,
@@ -21,6 +25,7 @@ type InspectionHandlers = Pick<
 
 export interface InspectionHandlerContext {
   dataDirectory: string;
+  catalogue?: RunCatalogue;
 }
 
 /** What a handler needs to know of a run between requests: fixed at its start. */
@@ -30,7 +35,8 @@ interface KnownRun {
 }
 
 export function createInspectionHandlers(context: InspectionHandlerContext): InspectionHandlers {
-  const service = createRunService({ dataDirectory: context.dataDirectory });
+  const catalogue = context.catalogue ?? createRunCatalogue(context.dataDirectory);
+  const service = createRunService({ dataDirectory: context.dataDirectory, catalogue });
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const known = new Map<string, KnownRun>();
@@ -74,7 +80,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
       return remember(await service.startRun({ planId, planVersion, sourceId, lot, lotSize, inspector, note }));
     },
 
-    'inspection.list': () => service.listRuns(),
+    'inspection.list': () => catalogue.listRuns(),
 
     'inspection.open': async ({ runId }) => remember(await translated(() => service.openRun(runId), runId)),
 
@@ -115,13 +121,19 @@ async function translated<Value>(operation: () => Promise<Value>, runId: string)
     if (error instanceof RunClosedError) {
       throw new ChannelFailure('conflict', 'The run has reached its decision: record a reason for entering more before the next entry.', 'runId');
     }
-    if (error instanceof RunNotWritableError) throw new ChannelFailure('conflict', error.message, 'runId');
+    if (error instanceof RunNotWritableError || error instanceof RunUnreadableError) throw new ChannelFailure('conflict', sentence(error.message), 'runId');
+    if (error instanceof RunNotFoundError) throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
     if (error instanceof ResultRefusedError) throw new ChannelFailure('invalid-parameter', `This run's plan is ${error.model}: ${error.message}.`, 'result');
     const systemCode = (error as NodeJS.ErrnoException).code;
     if (systemCode === 'ENOENT') throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
     if (error instanceof Error && error.name === 'Error' && systemCode === undefined) {
-      throw new ChannelFailure('conflict', `${error.message[0]?.toUpperCase() ?? ''}${error.message.slice(1)}.`, 'runId');
+      throw new ChannelFailure('conflict', sentence(error.message), 'runId');
     }
     throw error;
   }
+}
+
+/** A message as a sentence: capital first letter, one full stop. */
+function sentence(message: string): string {
+  return `${message[0]?.toUpperCase() ?? ''}${message.slice(1)}${message.endsWith('.') ? '' : '.'}`;
 }

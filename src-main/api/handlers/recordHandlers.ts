@@ -1,11 +1,19 @@
 import { limitRows, resolvePlan, type AnyPlanSpec, type PlanSpec } from '../../engine/index.js';
-import { RunJournalContentError, resultTotal } from '../../inspection/index.js';
+import {
+  RunJournalUnverifiedError,
+  RunNotFoundError,
+  createRunCatalogue,
+  requireIntact,
+  resultTotal,
+  type IntactRunRead,
+  type RunCatalogue,
+  matchesRunFilter,
+  type RunRow,
+} from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/entriesCsv.js';
 import { decisionRecordFromRun, evidenceHorizon, recordContextFor } from '../../record/fromRun.js';
 import type { DecisionRecordInput } from '../../record/recordInput.js';
 import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
-import { historyRow, runHistory } from '../../record/runHistory.js';
-import { RunJournalUnverifiedError, readRunJournal, requireVerified, type RunJournalRead } from '../../record/runJournalRead.js';
 import type { EvidenceFrame, InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
@@ -15,6 +23,7 @@ type RecordHandlers = Pick<ChannelHandlers, 'record.history' | 'record.open' | '
 
 export interface RecordHandlerContext {
   dataDirectory: string;
+  catalogue?: RunCatalogue;
 }
 
 /**
@@ -23,15 +32,17 @@ export interface RecordHandlerContext {
  */
 export function createRecordHandlers(context: RecordHandlerContext): RecordHandlers {
   const { dataDirectory } = context;
+  const catalogue = context.catalogue ?? createRunCatalogue(dataDirectory);
 
   /** One verified read of a run and its record input, with the run service's refusals as failures. */
-  async function recordOf(runId: string): Promise<{ read: RunJournalRead; input: DecisionRecordInput }> {
+  async function recordOf(runId: string): Promise<{ read: IntactRunRead; input: DecisionRecordInput }> {
     try {
-      const [read, recordContext] = await Promise.all([readRunJournal(dataDirectory, runId), recordContextFor(dataDirectory)]);
-      return { read, input: decisionRecordFromRun(requireVerified(read), recordContext) };
+      const [read, recordContext] = await Promise.all([catalogue.readRun(runId), recordContextFor(dataDirectory)]);
+      const intact = requireIntact(read);
+      return { read: intact, input: decisionRecordFromRun(intact, recordContext) };
     } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ENOENT') throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
-      if (error instanceof RunJournalUnverifiedError || error instanceof RunJournalContentError) {
+      if (error instanceof RunNotFoundError) throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
+      if (error instanceof RunJournalUnverifiedError) {
         throw new ChannelFailure('conflict', `${error.message}. Check it with: tallyline verify --run ${runId}`, 'runId');
       }
       throw error;
@@ -44,13 +55,21 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   }
 
   return {
-    'record.history': (filter) => runHistory(dataDirectory, filter),
+    'record.history': async (filter) => {
+      const every = await catalogue.listRuns();
+      return {
+        rows: every.filter((row) => matchesRunFilter(row, filter)),
+        sources: sourcesOf(every),
+        totalRuns: every.length,
+        damaged: every.filter((row) => row.outcome === 'damaged').length,
+      };
+    },
 
     'record.open': async ({ runId }) => {
       const { read, input } = await recordOf(runId);
       const { plan, run } = read.replay.header;
       return {
-        row: historyRow(read),
+        row: read.row,
         recordId: input.header.recordId,
         plan: { id: plan.id, name: plan.name, version: plan.version, spec: plan.spec },
         lotSize: run.lotSize,
@@ -76,8 +95,15 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   };
 }
 
+/** Every source that has runs, by name, for the Records filter. */
+function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }> {
+  const named = new Map<string, string>();
+  for (const row of rows) if (row.sourceId !== null && row.sourceName !== null) named.set(row.sourceId, row.sourceName);
+  return [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
+}
+
 /** The evidence path and the frame it is drawn in: for the models with their own design path, as the Inspect place draws them. */
-function recordEvidence(read: RunJournalRead, spec: AnyPlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
+function recordEvidence(read: IntactRunRead, spec: AnyPlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
   if (spec.model === 'passfail' || spec.model === 'count') {
     return { entries: evidenceEntries(read, spec), frame: evidenceFrame(spec, itemsInspected) };
   }
@@ -85,7 +111,7 @@ function recordEvidence(read: RunJournalRead, spec: AnyPlanSpec, itemsInspected:
 }
 
 /** Each result with n, total and LLR after it (null for a voided one): the points of the evidence path. */
-function evidenceEntries(read: RunJournalRead, spec: PlanSpec): InspectionEntry[] {
+function evidenceEntries(read: IntactRunRead, spec: PlanSpec): InspectionEntry[] {
   const { countWeight, itemOffset } = resolvePlan(spec);
   let n = 0;
   let total = 0;
