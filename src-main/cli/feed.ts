@@ -4,7 +4,7 @@
  * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
  */
 import { createInterface } from 'node:readline';
-import type { RunService } from '../inspection/index.js';
+import { RunUnreadableError, type RunService } from '../inspection/index.js';
 import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
@@ -22,9 +22,21 @@ export interface FeedOptions {
 
 /** Feed `lines` into a run; resolves to the exit code. Each line's entry is durable before the next is read. */
 export async function feedLines(service: RunService, lines: AsyncIterable<string>, options: FeedOptions, io: CliIo): Promise<number> {
-  const opened = await service.openRun(options.runId);
+  let opened;
+  try {
+    opened = await service.openRun(options.runId);
+  } catch (error) {
+    if (!(error instanceof RunUnreadableError)) throw error;
+    io.stderr(`tallyline feed: ${error.message}\n`);
+    return EXIT_FAILURE;
+  }
   if (!opened.writable) {
-    io.stderr(`tallyline feed: run ${options.runId} cannot be written: ${opened.problems[0]?.problem ?? 'it is open elsewhere'}\n`);
+    const damaged = opened.problems.find((problem) => problem.kind === 'tampered');
+    io.stderr(
+      damaged === undefined
+        ? `tallyline feed: run ${options.runId} cannot be written: it is open elsewhere\n`
+        : `tallyline feed: run ${options.runId} is damaged from seq ${damaged.seq} (${damaged.problem}); it can be read, never written\n`,
+    );
     return EXIT_FAILURE;
   }
   if (opened.run.status === 'closed') {

@@ -263,6 +263,7 @@ export type RunCatalogue = ReturnType<typeof createRunCatalogue>;
 
 export function createRunCatalogue(dataDirectory: string) {
   const rows = new Map<string, { readonly key: string; readonly row: RunRow }>();
+  let journalsRead = 0;
 
   async function readRun(runId: string): Promise<RunRead> {
     const journalPath = layout.runJournal(dataDirectory, checkId('run', runId));
@@ -277,6 +278,7 @@ export function createRunCatalogue(dataDirectory: string) {
       // The key is taken before the bytes: a change during the read makes the next listing read again.
       const key = fileKey(await handle.stat());
       const read = readRunBytes(runId, await handle.readFile());
+      journalsRead += 1;
       rows.set(runId, { key, row: read.row });
       return read;
     } finally {
@@ -299,6 +301,11 @@ export function createRunCatalogue(dataDirectory: string) {
 
   return {
     readRun,
+
+    /** How many journals this catalogue has read and verified so far (what a listing of unchanged runs avoids). */
+    get journalsRead(): number {
+      return journalsRead;
+    },
 
     /** Every run that passes the filter, newest start first. */
     async listRuns(filter: RunFilter = {}): Promise<RunRow[]> {
