@@ -12,6 +12,7 @@
  */
 import {
   acceptTime,
+  decide,
   decideGraded,
   decideLifetime,
   decideMeasurement,
@@ -94,6 +95,15 @@ export class RunEvidence {
         if (decideLifetime(this.plan.plan, this.time, this.failures).decision === 'continue') this.failures += 1;
       }
     }
+  }
+
+  /** The engine's decision on the evidence now, with its rule also while continuing ("between the lines"). */
+  decision(): { decision: RunState['decision']; rule: string; llr: number } {
+    const { plan } = this;
+    if (plan.model === 'linear') return decide(plan.spec, this.n, this.total);
+    if (plan.model === 'measurement') return decideMeasurement(plan.plan, this.n, this.total);
+    if (plan.model === 'lifetime') return decideLifetime(plan.plan, this.time, this.failures);
+    return decideGraded(plan.plan, this.counts);
   }
 
   /** The statistics now, with the engine's decision. */
