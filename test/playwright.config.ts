@@ -3,6 +3,7 @@ import { chromiumExecutable } from './e2e/support/chromiumExecutable.js';
 
 export default defineConfig({
   testDir: './e2e',
+  globalSetup: './e2e/support/playwrightGlobalSetup.ts',
   testMatch: /.*\.e2e\.ts$/,
   outputDir: './artifacts/playwright',
   timeout: 60_000,

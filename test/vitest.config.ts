@@ -12,5 +12,6 @@ export default defineConfig({
     environment: 'node',
     testTimeout: 60_000,
     pool: 'forks',
+    globalSetup: ['test/support/vitestGlobalSetup.ts'],
   },
 });

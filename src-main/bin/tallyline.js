@@ -1,14 +1,13 @@
 #!/usr/bin/env node
-// The `tallyline` bin: runs the TypeScript CLI (src-main/cli.ts) under tsx in a child Node process.
-// Paths resolve from this file's location, so it works from any working directory.
-import { spawn } from 'node:child_process';
+// The `tallyline` bin: runs the compiled CLI (build/main/cli.js) in this process. In a source
+// checkout it first rebuilds the main side when its sources changed (scripts/build.mjs, quiet
+// when up to date). Paths resolve from this file's location, so it works from any working directory.
+import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
-const cli = fileURLToPath(new URL('../cli.ts', import.meta.url));
-const tsx = import.meta.resolve('tsx');
-
-const child = spawn(process.execPath, ['--import', tsx, cli, ...process.argv.slice(2)], { stdio: 'inherit' });
-child.on('exit', (code, signal) => {
-  if (signal !== null) process.kill(process.pid, signal);
-  else process.exit(code ?? 1);
-});
+const builder = new URL('../../scripts/build.mjs', import.meta.url);
+if (existsSync(fileURLToPath(builder))) {
+  const { ensureBuilt } = await import(builder.href);
+  ensureBuilt(['main']);
+}
+await import(new URL('../../build/main/cli.js', import.meta.url).href);

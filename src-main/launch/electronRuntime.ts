@@ -21,3 +21,12 @@ export function tryDownloadElectronRuntime(appRoot: string): boolean {
   const outcome = spawnSync(process.execPath, [installer], { stdio: 'ignore', timeout: 180_000 });
   return outcome.status === 0;
 }
+
+/**
+ * The arguments for the Electron runtime: the app folder, not the main script, so Electron reads
+ * package.json (its `name`, `productName` and `main`) and keeps its profile and single-instance
+ * lock under the app's own name rather than "Electron".
+ */
+export function electronLaunchArguments(appRoot: string, userArguments: readonly string[]): string[] {
+  return [appRoot, ...userArguments];
+}

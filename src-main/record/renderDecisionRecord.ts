@@ -1,7 +1,6 @@
 import { createWriteStream } from 'node:fs';
 import type { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import PDFDocument from 'pdfkit';
 import { validateDecisionRecordInput, type DecisionRecordInput } from './recordInput.js';
 import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './fonts.js';
 import { FOOTER_RESERVE, RecordLayout } from './layout.js';
@@ -24,8 +23,14 @@ function metadataText(text: string): string {
   return text.replaceAll('&', 'and').replace(/[<>]/g, '');
 }
 
-function createRecordDocument(input: DecisionRecordInput, fonts: RecordFontFiles): PDFKit.PDFDocument {
+/** pdfkit, loaded on the first record: most processes (the CLI's other commands, a host that never prints) never need it. */
+async function loadPdfKit(): Promise<typeof import('pdfkit')> {
+  return (await import('pdfkit')).default;
+}
+
+async function createRecordDocument(input: DecisionRecordInput, fonts: RecordFontFiles): Promise<PDFKit.PDFDocument> {
   const { header, subject } = input;
+  const PDFDocument = await loadPdfKit();
   const doc = new PDFDocument({
     size: header.pageSize ?? 'A4',
     margins: { top: 44, left: 48, right: 48, bottom: 20 + FOOTER_RESERVE },
@@ -82,7 +87,7 @@ function drawRecord(doc: PDFKit.PDFDocument, input: DecisionRecordInput): void {
  */
 export async function writeDecisionRecord(input: DecisionRecordInput, destination: Writable | string, options: RenderOptions = {}): Promise<void> {
   validateDecisionRecordInput(input);
-  const doc = createRecordDocument(input, options.fonts ?? findRecordFonts());
+  const doc = await createRecordDocument(input, options.fonts ?? findRecordFonts());
   drawRecord(doc, input);
   const output = typeof destination === 'string' ? createWriteStream(destination) : destination;
   const done = pipeline(doc, output);
@@ -93,7 +98,7 @@ export async function writeDecisionRecord(input: DecisionRecordInput, destinatio
 /** The decision record of a run as PDF bytes. */
 export async function renderDecisionRecord(input: DecisionRecordInput, options: RenderOptions = {}): Promise<Buffer> {
   validateDecisionRecordInput(input);
-  const doc = createRecordDocument(input, options.fonts ?? findRecordFonts());
+  const doc = await createRecordDocument(input, options.fonts ?? findRecordFonts());
   drawRecord(doc, input);
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));

@@ -10,12 +10,12 @@ afterEach(async () => {
 });
 
 describe('tallyline demo, backup and restore on the real command line', () => {
-  it('npm run demo fills a fresh folder, refuses it the second time; backup then restore gives the same files', { timeout: 60_000 }, async () => {
+  it('demo fills a fresh folder, refuses it the second time; backup then restore gives the same files', { timeout: 60_000 }, async () => {
     const root = await mkdtemp(path.join(os.tmpdir(), 'tallyline-backup-cli-'));
     folders.push(root);
     const data = path.join(root, 'data');
 
-    const seeded = await runCli(['--data-dir', data], { entry: ['--import', 'tsx', 'src-main/demo/seed.ts'] });
+    const seeded = await runCli(['demo', '--data-dir', data]);
     expect(seeded.code).toBe(0);
     expect(seeded.stdout).toMatch(/3 sources .*\n.*3 plans, 13 runs: \d+ accepted, \d+ rejected, 1 still open/);
     const again = await runCli(['demo', '--data-dir', data]);

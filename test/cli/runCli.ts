@@ -1,8 +1,12 @@
-// Runs the real CLI the way a user does (node --import tsx src-main/cli.ts ...), from the repo root.
+// Runs the real CLI the way an installed app does: the compiled build/main/cli.js under plain Node,
+// from the repo root. test/support/buildOnce.ts builds it before the first test file runs.
 import { spawn } from 'node:child_process';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 export const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
+/** The compiled command line, as `npm run cli` and the bin run it. */
+export const compiledCliEntry = join(repoRoot, 'build', 'main', 'cli.js');
 
 export interface CliResult {
   code: number | null;
@@ -11,7 +15,7 @@ export interface CliResult {
 }
 
 export function runCli(args: readonly string[], options: { input?: string; entry?: string[] } = {}): Promise<CliResult> {
-  const entry = options.entry ?? ['--import', 'tsx', 'src-main/cli.ts'];
+  const entry = options.entry ?? [compiledCliEntry];
   return new Promise((resolve, reject) => {
     const child = spawn(process.execPath, [...entry, ...args], { cwd: repoRoot, stdio: 'pipe' });
     let stdout = '';

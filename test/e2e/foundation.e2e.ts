@@ -1,5 +1,8 @@
 import { expect, test } from './support/browserHostFixture.js';
 
+// These tests only read: they share one host (and its empty data folder).
+test.use({ hostSharing: 'file' });
+
 // Check values: NIST/SEMATECH e-Handbook of Statistical Methods §6.2.6 "What is a Sequential
 // Sampling Plan?" — p1 = 0.01, alpha = 0.05, p2 = 0.10, beta = 0.10 gives h1 = 0.939,
 // h2 = 1.205, s = 0.0397 (inputs [M], printed results reproduced by computation [C];

@@ -7,9 +7,9 @@ import { fileURLToPath } from 'node:url';
 import { afterEach } from 'vitest';
 import { decide } from '../../src-main/engine/index.js';
 import { layout } from '../../src-main/store/index.js';
+import { compiledCliEntry } from '../cli/runCli.js';
 
 const root = fileURLToPath(new URL('../..', import.meta.url));
-const cliEntry = path.join(root, 'src-main', 'cli.ts');
 const planFlags = ['--model', 'passfail', '--p0', '0.01', '--p1', '0.1', '--alpha', '0.05', '--beta', '0.05'];
 
 interface CliResult {
@@ -18,10 +18,10 @@ interface CliResult {
   readonly stderr: string;
 }
 
-/** Run the real CLI (as `npm run cli` does: tsx src-main/cli.ts) with `input` on stdin, closed after it unless `keepOpen`. */
+/** Run the real compiled CLI (as `npm run cli` does) with `input` on stdin, closed after it unless `keepOpen`. */
 function cli(args: readonly string[], input = '', keepOpen = false): Promise<CliResult> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', cliEntry, ...args], { cwd: root, env: { ...process.env, TALLYLINE_DATA: '' } });
+    const child = spawn(process.execPath, [compiledCliEntry, ...args], { cwd: root, env: { ...process.env, TALLYLINE_DATA: '' } });
     let stdout = '';
     let stderr = '';
     child.stdout.on('data', (chunk: Buffer) => (stdout += chunk.toString()));

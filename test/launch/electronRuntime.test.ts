@@ -2,7 +2,7 @@ import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { findElectronRuntime, tryDownloadElectronRuntime } from '../../src-main/launch/electronRuntime.js';
+import { electronLaunchArguments, findElectronRuntime, tryDownloadElectronRuntime } from '../../src-main/launch/electronRuntime.js';
 
 const made: string[] = [];
 async function fakeAppRoot(): Promise<string> {
@@ -37,5 +37,11 @@ describe('finding the Electron runtime for npm start', () => {
     const root = await fakeAppRoot();
     await writeFile(join(root, 'node_modules', 'electron', 'install.js'), 'process.exit(1)');
     expect(tryDownloadElectronRuntime(root)).toBe(false);
+  });
+});
+
+describe('launching the Electron runtime for npm start', () => {
+  it('passes the app folder, not the main script, so Electron reads package.json and names the app after it', () => {
+    expect(electronLaunchArguments('/opt/tallyline', ['--data-dir', './lab-data'])).toEqual(['/opt/tallyline', '--data-dir', './lab-data']);
   });
 });
