@@ -73,8 +73,8 @@ test('a run accepted, reopened with an override and continued reads "reopened af
   await expect(sourceRun.getByTestId('source-run-outcome')).toHaveText(WORDS);
   await page.screenshot({ path: 'test/artifacts/sources-reopened-run.png' });
 
-  // The CLI's run show, as text and as JSON.
-  const cli = (args: string[]) => run(process.execPath, ['--import', 'tsx', 'src-main/cli.ts', ...args, '--data-dir', host.dataDirectory], { cwd: appRoot });
+  // The CLI's run show (the compiled command line the global setup built), as text and as JSON.
+  const cli = (args: string[]) => run(process.execPath, [join(appRoot, 'build', 'main', 'cli.js'), ...args, '--data-dir', host.dataDirectory], { cwd: appRoot });
   const shown = await cli(['run', 'show', '--run', runId]);
   expect(shown.stdout).toContain(`Outcome: ${WORDS}`);
   expect(shown.stdout).toContain('customer asked for a second sample from the same lot');
