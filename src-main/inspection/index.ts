@@ -8,3 +8,4 @@ export * from './runCatalogue.js';
 export * from './runOutcome.js';
 export { runView } from './runView.js';
 export { localTimestamp } from './localTime.js';
+export * from './runPictures.js';

@@ -7,6 +7,7 @@ import { designPlan, limitRows, resolvePlan, decide, isExtendedPlanSpec, PlanPar
 import { estimateAfterStop } from '../engine/estimation/index.js';
 import {
   OUTCOME_WORDS,
+  itemHorizon,
   createRunCatalogue,
   localTimestamp,
   requireIntact,
@@ -37,9 +38,6 @@ export interface RecordContext {
   readonly generatedAt: Date;
 }
 
-/** Items drawn past the last one inspected, so the steps just ahead stay in view. */
-const HORIZON_MARGIN = 1.1;
-const MINIMUM_HORIZON = 10;
 
 /**
  * `DR-<random part of the run id>-<first 8 hex of the fingerprint>`: the same journal gives the same
@@ -132,11 +130,9 @@ function recordEntries(read: IntactRunRead): RecordEntry[] {
   }));
 }
 
-/** The item count the record's chart and the Records place draw up to. */
+/** The item count the record's chart draws up to: the screens' horizon rule (inspection/runPictures.ts) one item past the last. */
 export function evidenceHorizon(spec: PlanSpec, itemsInspected: number): number {
-  const { lines } = resolvePlan(spec);
-  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * itemsInspected));
-  return lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, itemsInspected));
+  return itemHorizon(itemsInspected, 1, resolvePlan(spec).lines.truncation);
 }
 
 function boundarySteps(spec: PlanSpec, itemsInspected: number): BoundaryStep[] {

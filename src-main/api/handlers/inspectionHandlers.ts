@@ -16,7 +16,7 @@ import { PlanRepository, SourceRepository } from '../../store/index.js';
 import type { InspectionEntry, InspectionRunView, InspectionStep } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
-import { evidenceFrame, pointOf, runLive, withStatistics } from './inspectionFrames.js';
+import { evidenceFrame, pointOf, runLive, withStatistics } from '../../inspection/index.js';
 
 type InspectionHandlers = Pick<
   ChannelHandlers,

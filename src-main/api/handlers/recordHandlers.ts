@@ -1,23 +1,24 @@
-import { limitRows, resolvePlan, type AnyPlanSpec, type PlanSpec } from '../../engine/index.js';
+import type { AnyPlanSpec } from '../../engine/index.js';
 import {
   RunJournalUnverifiedError,
   RunNotFoundError,
   createRunCatalogue,
   requireIntact,
-  resultTotal,
   type IntactRunRead,
   type RunCatalogue,
   matchesRunFilter,
+  evidenceFrame,
+  runLive,
+  withStatistics,
   type RunRow,
 } from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/entriesCsv.js';
-import { decisionRecordFromRun, evidenceHorizon, recordContextFor } from '../../record/fromRun.js';
+import { decisionRecordFromRun, recordContextFor } from '../../record/fromRun.js';
 import type { DecisionRecordInput } from '../../record/recordInput.js';
 import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
-import type { EvidenceFrame, InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
+import type { InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
-import { evidenceFrame as runFrame, runLive, withStatistics } from './inspectionFrames.js';
 
 type RecordHandlers = Pick<ChannelHandlers, 'record.history' | 'record.open' | 'record.pdf' | 'record.csv'>;
 
@@ -74,7 +75,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
         plan: { id: plan.id, name: plan.name, version: plan.version, spec: plan.spec },
         lotSize: run.lotSize,
         inspectors: input.subject.inspectors,
-        ...recordEvidence(read, plan.spec, input.decision.itemsInspected),
+        ...recordEvidence(read, plan.spec),
         decision: input.decision,
         estimate: input.qualityEstimate,
         interim: input.interim,
@@ -102,30 +103,7 @@ function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }>
   return [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
 }
 
-/** The evidence path and the frame it is drawn in: for the models with their own design path, as the Inspect place draws them. */
-function recordEvidence(read: IntactRunRead, spec: AnyPlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
-  if (spec.model === 'passfail' || spec.model === 'count') {
-    return { entries: evidenceEntries(read, spec), frame: evidenceFrame(spec, itemsInspected) };
-  }
-  return { entries: withStatistics(spec, read.replay.results), frame: runFrame(spec, runLive(spec, read.replay.evidence.state())) };
-}
-
-/** Each result with n, total and LLR after it (null for a voided one): the points of the evidence path. */
-function evidenceEntries(read: IntactRunRead, spec: PlanSpec): InspectionEntry[] {
-  const { countWeight, itemOffset } = resolvePlan(spec);
-  let n = 0;
-  let total = 0;
-  return read.replay.results.map((entry) => {
-    if (entry.voided) return { ...entry, after: null };
-    n += 1;
-    total += resultTotal(entry.result);
-    return { ...entry, after: { n, total, llr: countWeight * total - itemOffset * n } };
-  });
-}
-
-/** The steps the chart draws: the same horizon as the printed record's chart. */
-function evidenceFrame(spec: PlanSpec, itemsInspected: number): EvidenceFrame {
-  const { lines, countWeight } = resolvePlan(spec);
-  const horizon = evidenceHorizon(spec, itemsInspected);
-  return { horizon, limits: limitRows(lines, horizon), lnA: lines.h2 * countWeight, lnB: -lines.h1 * countWeight, truncation: lines.truncation };
+/** The evidence path and the frame it is drawn in: the run's pictures, as the Inspect place draws them. */
+function recordEvidence(read: IntactRunRead, spec: AnyPlanSpec): { entries: InspectionEntry[]; frame: InspectionFrame } {
+  return { entries: withStatistics(spec, read.replay.results), frame: evidenceFrame(spec, runLive(spec, read.replay.evidence.state())) };
 }
