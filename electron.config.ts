@@ -18,7 +18,19 @@ const configuration: Configuration = {
     icon: 'assets/icon.png',
     maintainer: 'Tallyline authors',
   },
-  deb: { depends: ['libnss3', 'libgtk-3-0'] },
+  // No deb.depends: electron-builder's default list (GTK, NSS, libnotify, xdg-utils to open a
+  // record PDF, libsecret, ...) is what the runtime needs; a list here would replace it, not add to it.
+  // Electron fuses, flipped in the packaged binary: no ELECTRON_RUN_AS_NODE, NODE_OPTIONS or
+  // --inspect entry points, and the app code only from its integrity-checked asar.
+  electronFuses: {
+    runAsNode: false,
+    enableCookieEncryption: true,
+    enableNodeOptionsEnvironmentVariable: false,
+    enableNodeCliInspectArguments: false,
+    enableEmbeddedAsarIntegrityValidation: true,
+    onlyLoadAppFromAsar: true,
+    grantFileProtocolExtraPrivileges: false,
+  },
   win: { target: ['nsis'], icon: 'assets/icon.png' },
   nsis: { oneClick: false, allowToChangeInstallationDirectory: true, perMachine: false },
   mac: { target: ['dmg'], category: 'public.app-category.productivity', icon: 'assets/icon.png' },

@@ -6,8 +6,9 @@
  *   last line   {"end":true,"files":<count>}                       so a cut at a line boundary is seen
  *
  * Paths are relative, with "/" separators, and only those of the data folder's layout. A journal's
- * manifest entry carries its chain verification at backup time, so restore can tell a journal
- * damaged since (refused) from one that was already damaged when backed up (restored as it was).
+ * manifest entry carries its chain verification and how it stood against its anchor (the
+ * `runs/<id>.anchor` file, archived too) at backup time, so restore can tell a journal damaged
+ * since (refused) from one that was already damaged when backed up (restored as it was).
  */
 import { z } from 'zod';
 
@@ -20,7 +21,7 @@ const ARCHIVED_PATHS = [
   /^settings\.json$/,
   new RegExp(`^sources/${SEGMENT}\\.json$`),
   new RegExp(`^plans/${SEGMENT}/v[1-9]\\d{0,8}\\.json$`),
-  new RegExp(`^runs/${SEGMENT}\\.(journal|quarantine)$`),
+  new RegExp(`^runs/${SEGMENT}\\.(journal|quarantine|anchor)$`),
 ];
 
 /** Whether a relative path is one of the data folder's own files (and cannot leave the folder). */
@@ -28,10 +29,19 @@ export function isArchivedPath(relativePath: string): boolean {
   return !relativePath.includes('..') && ARCHIVED_PATHS.some((pattern) => pattern.test(relativePath));
 }
 
+/** How a journal stood against its anchor at backup (see store/journal/anchor.ts); absent in older archives. */
+export const anchorCheckSchema = z.object({
+  status: z.enum(['anchored', 'one-ahead', 'missing', 'behind', 'differs', 'ahead', 'unreadable']),
+  seq: z.number().int().nonnegative().optional(),
+  fingerprint: z.string().regex(/^[0-9a-f]{64}$/).optional(),
+});
+
 export const journalCheckSchema = z.object({
+  /** The hash chain alone verifies. */
   ok: z.boolean(),
   entries: z.number().int().nonnegative(),
   fingerprint: z.string().nullable(),
+  anchor: anchorCheckSchema.optional(),
 });
 export type JournalCheck = z.infer<typeof journalCheckSchema>;
 

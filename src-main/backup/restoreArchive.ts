@@ -5,8 +5,10 @@
  *
  * Method: unpack and check in memory (readArchive.ts) -> refuse while a live process holds a run's
  * lock -> write `<parent>/.<name>.restoring-<random>` file by file (fsync each, then the folders)
- * -> validate settings, sources and plans with their zod schemas, verifyJournal each journal and
- * compare with the verification the manifest recorded at backup -> rename the data folder to
+ * -> validate settings, sources and plans with their zod schemas; read each journal back with its
+ * anchor and compare both with what the manifest recorded at backup; replay each intact journal
+ * through the run service's own replay (RunReplay), so a run that would not open is refused here;
+ * anchor an intact journal that has no anchor yet (an archive from before anchors) -> rename the data folder to
  * `<name>.before-restore-<UTC stamp>`, rename the checked folder to `<name>`, fsync the parent.
  * Any failure before the swap removes the checked folder and leaves the data folder as it was.
  */
@@ -14,7 +16,19 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readFile, readdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { z } from 'zod';
-import { planVersionSchema, processIsAlive, settingsSchema, sourceSchema, syncFolder, verifyJournal } from '../store/index.js';
+import { RunReplay } from '../inspection/index.js';
+import {
+  anchorFileBytes,
+  anchorPathFor,
+  liveLockOwner,
+  planVersionSchema,
+  readAnchoredJournal,
+  settingsSchema,
+  sourceSchema,
+  syncFolder,
+  writeFileAtomic,
+  type JournalEntry,
+} from '../store/index.js';
 import { ArchiveRefusedError, RestoreBlockedError } from './archiveFormat.js';
 import { unpackArchive, type ArchivedFile } from './readArchive.js';
 
@@ -110,17 +124,7 @@ async function checkWritten(staging: string, files: readonly ArchivedFile[]): Pr
   for (const file of files) {
     const onDisk = path.join(staging, ...file.path.split('/'));
     if (file.path.endsWith('.journal')) {
-      const check = await verifyJournal(onDisk);
-      const recorded = file.journal;
-      if (recorded === undefined) throw new ArchiveRefusedError(`the manifest has no chain check for the journal "${file.path}"`);
-      if (check.ok !== recorded.ok || check.entries !== recorded.entries || check.fingerprint !== recorded.fingerprint) {
-        const problem = check.problems[0];
-        throw new ArchiveRefusedError(
-          `the journal "${file.path}" does not verify as it did at backup` +
-            (problem ? ` (seq ${problem.seq}, line ${problem.line}: ${problem.problem})` : ` (fingerprint ${check.fingerprint} instead of ${recorded.fingerprint})`),
-        );
-      }
-      if (!check.ok) damagedAtBackup.push(file.path);
+      if (await checkJournal(file, onDisk)) damagedAtBackup.push(file.path);
       continue;
     }
     const rule = SCHEMAS.find(([pattern]) => pattern.test(file.path));
@@ -141,6 +145,64 @@ async function checkWritten(staging: string, files: readonly ArchivedFile[]): Pr
   return damagedAtBackup;
 }
 
+/**
+ * Checks one restored journal against the manifest: the same chain verification, the same standing
+ * against its anchor, and a replay of its entries. Returns true when it was already damaged at
+ * backup (restored as it was); throws ArchiveRefusedError when anything differs or it does not replay.
+ */
+async function checkJournal(file: ArchivedFile, onDisk: string): Promise<boolean> {
+  const recorded = file.journal;
+  if (recorded === undefined) throw new ArchiveRefusedError(`the manifest has no chain check for the journal "${file.path}"`);
+  const read = await readAnchoredJournal(onDisk);
+  const chainProblems = read.problems.filter((problem) => problem !== read.anchor.problem);
+  const chainOk = chainProblems.length === 0;
+  if (chainOk !== recorded.ok || read.entries.length !== recorded.entries || read.fingerprint !== recorded.fingerprint) {
+    const problem = chainProblems[0];
+    throw new ArchiveRefusedError(
+      `the journal "${file.path}" does not verify as it did at backup` +
+        (problem ? ` (seq ${problem.seq}, line ${problem.line}: ${problem.problem})` : ` (fingerprint ${read.fingerprint} instead of ${recorded.fingerprint})`),
+    );
+  }
+  const anchorAtBackup = recorded.anchor?.status ?? 'missing';
+  if (read.anchor.status !== anchorAtBackup || (read.anchor.anchor?.seq ?? null) !== (recorded.anchor?.seq ?? null)) {
+    const problem = read.anchor.problem;
+    throw new ArchiveRefusedError(
+      `the journal "${file.path}" does not stand against its anchor as it did at backup (${anchorAtBackup} then, ${read.anchor.status} now` +
+        (problem ? `; seq ${problem.seq}: ${problem.problem})` : ')'),
+    );
+  }
+  if (!chainOk || read.anchor.problem !== null) return true;
+  const replayProblem = firstReplayProblem(read.entries);
+  if (replayProblem !== null) {
+    throw new ArchiveRefusedError(`the journal "${file.path}" does not replay: seq ${replayProblem.seq}: ${replayProblem.message}`);
+  }
+  if (read.anchor.status !== 'anchored' && read.fingerprint !== null) {
+    // Checked against the manifest's fingerprint above: that record is the anchor this journal had.
+    await writeFileAtomic(anchorPathFor(onDisk), anchorFileBytes({ seq: read.entries.length - 1, fingerprint: read.fingerprint }));
+  }
+  return false;
+}
+
+/** The first entry the run service's replay refuses, or null when the whole journal replays. */
+function firstReplayProblem(entries: readonly JournalEntry[]): { seq: number; message: string } | null {
+  let replay: RunReplay;
+  try {
+    replay = RunReplay.fromEntries(entries.slice(0, 1));
+  } catch (error) {
+    return { seq: 0, message: withoutSeq(error) };
+  }
+  for (const entry of entries.slice(1)) {
+    try {
+      replay.apply(entry);
+    } catch (error) {
+      return { seq: entry.seq, message: withoutSeq(error) };
+    }
+  }
+  return null;
+}
+
+const withoutSeq = (error: unknown): string => (error as Error).message.replace(/^run journal entry \d+: /, '');
+
 /** A run whose lock names a live process is being written: swapping the folder under it would lose entries. */
 async function refuseWhileRunsAreOpen(dataDirectory: string): Promise<void> {
   let names: string[];
@@ -151,9 +213,9 @@ async function refuseWhileRunsAreOpen(dataDirectory: string): Promise<void> {
     throw error;
   }
   for (const name of names.filter((entry) => entry.endsWith('.lock'))) {
-    const pid = Number.parseInt(await readFile(path.join(dataDirectory, 'runs', name), 'utf8').catch(() => ''), 10);
-    if (Number.isInteger(pid) && pid > 0 && processIsAlive(pid)) {
-      const who = pid === process.pid ? 'this Tallyline' : `another Tallyline (process ${pid})`;
+    const owner = await liveLockOwner(path.join(dataDirectory, 'runs', name));
+    if (owner !== null) {
+      const who = owner.pid === process.pid ? 'this Tallyline' : `another Tallyline (process ${owner.pid}${owner.host === null ? '' : ` on ${owner.host}`})`;
       throw new RestoreBlockedError(
         `run ${name.slice(0, -'.lock'.length)} is open for entry in ${who}; close Tallyline and restore from the command line ` +
           `(tallyline restore --from FILE --data-dir DIR)`,

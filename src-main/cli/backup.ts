@@ -4,9 +4,9 @@ import { writeFileAtomic } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
-const flags = { ...dataDirectoryFlags, out: flag.text('a file to write the archive to'), json: flag.switch() };
+const flags = { ...dataDirectoryFlags, out: flag.path('a file to write the archive to'), json: flag.switch() };
 
 export const command: Command = {
   summary: 'write the whole data folder to one archive file',
@@ -18,7 +18,7 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     const out = requireFlag<string>(values, 'out', flags);
-    const archive = await exportArchive(dataDirectoryFor(args));
+    const archive = await exportArchive(await checkedDataDirectory(args));
     await writeFileAtomic(out, archive.bytes);
     const damaged = archive.manifest.files.filter((file) => file.journal !== undefined && !file.journal.ok).map((file) => file.path);
     const summary = { file: out, files: archive.manifest.files.length, bytes: archive.bytes.length, skipped: archive.skipped, damagedJournals: damaged };

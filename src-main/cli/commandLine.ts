@@ -5,7 +5,9 @@
  * Add a command by writing `src-main/cli/<name>.ts` exporting `command: Command` and one line below.
  */
 import { readFile } from 'node:fs/promises';
+import { createInterface } from 'node:readline';
 import type { CliIo } from './command.js';
+import { EXIT_FAILURE, errorLine } from './command.js';
 import { dispatch } from './dispatch.js';
 import type { CommandTable } from './dispatch.js';
 
@@ -44,9 +46,34 @@ const processIo: CliIo = {
   stdout: (text) => void process.stdout.write(text),
   stderr: (text) => void process.stderr.write(text),
   readText: (path) => (path === '-' ? readStdin() : readFile(path, 'utf8')),
+  inputLines() {
+    const reader = createInterface({ input: process.stdin, crlfDelay: Infinity });
+    // Take the iterator now: it buffers lines that arrive (and the end of input) while a run opens.
+    const iterator = reader[Symbol.asyncIterator]();
+    return {
+      lines: { [Symbol.asyncIterator]: () => iterator },
+      close() {
+        reader.close();
+        process.stdin.destroy();
+      },
+    };
+  },
 };
+
+/**
+ * Runs `tallyline <argv>` against the given streams, so tests can walk every command in-process;
+ * every failure ends as one line on `io.stderr` and an exit code, never a throw.
+ */
+export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  try {
+    return await dispatch(commands, argv, io);
+  } catch (error) {
+    io.stderr(`tallyline: ${errorLine(error)}\n`);
+    return EXIT_FAILURE;
+  }
+}
 
 /** Runs the command named at the front of `args` against the process's own streams; resolves to the exit code. */
 export function runCommandLine(args: readonly string[]): Promise<number> {
-  return dispatch(commands, args, processIo);
+  return runCli(args, processIo);
 }

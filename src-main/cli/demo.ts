@@ -3,7 +3,7 @@ import { DataFolderNotEmptyError, describeDemo, seedDemo } from '../demo/index.j
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, seed: flag.integer(0, 2 ** 32 - 1), json: flag.switch() };
 
@@ -18,7 +18,7 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     try {
-      const report = await seedDemo(dataDirectoryFor(args), { seed: values.seed });
+      const report = await seedDemo(await checkedDataDirectory(args, true), { seed: values.seed });
       io.stdout(values.json === true ? `${JSON.stringify(report)}\n` : `${describeDemo(report)}\n`);
       return EXIT_OK;
     } catch (error) {

@@ -7,10 +7,10 @@ import { entriesToCsv } from '../record/entriesCsv.js';
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { recordInputFor, requireRunId } from './record.js';
+import { recordInputFor } from './record.js';
 import { dataDirectoryFlags } from './dataFolderFlag.js';
 
-const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), out: flag.text('a file path, or - for standard output') };
+const flags = { ...dataDirectoryFlags, run: flag.id('run'), out: flag.path('a file path, or - for standard output') };
 
 export const command: Command = {
   summary: "export a run's entries as CSV (RFC 4180, UTF-8)",
@@ -22,7 +22,6 @@ export const command: Command = {
     const values = parseFlags(args, flags);
     const runId = requireFlag<string>(values, 'run', flags);
     const out = requireFlag<string>(values, 'out', flags);
-    requireRunId(runId);
     const input = await recordInputFor(args, runId, 'export', io);
     if (input === null) return EXIT_FAILURE;
     const csv = entriesToCsv(input.entries, input.plan.model);

@@ -3,16 +3,15 @@
  * After each entry is written and fsync'd it prints {"seq": N, "state": ...}; it stops right after
  * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
  */
-import { createInterface } from 'node:readline';
 import { RunUnreadableError, type RunService } from '../inspection/index.js';
 import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags } from './dataFolderFlag.js';
+import { dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 import { runServiceFor } from './run.js';
 
-const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), actor: flag.text('a name'), json: flag.switch() };
+const flags = { ...dataDirectoryFlags, run: flag.id('run'), actor: flag.text('The name of who made the entry'), json: flag.switch() };
 
 export interface FeedOptions {
   readonly runId: string;
@@ -85,17 +84,14 @@ export const command: Command = {
   async run(args, io) {
     const values = parseFlags(args, flags);
     const runId = requireFlag<string>(values, 'run', flags);
-    const { service } = runServiceFor(args);
-    const reader = createInterface({ input: process.stdin, crlfDelay: Infinity });
-    // Take the iterator now: it buffers lines that arrive (and the end of input) while the run opens.
-    const iterator = reader[Symbol.asyncIterator]();
-    const lines: AsyncIterable<string> = { [Symbol.asyncIterator]: () => iterator };
+    const { dataDirectory, service } = await runServiceFor(args);
+    const input = io.inputLines();
     try {
-      return await feedLines(service, lines, { runId, actor: values.actor, json: values.json === true }, io);
+      await requireExistingRun(dataDirectory, runId);
+      return await feedLines(service, input.lines, { runId, actor: values.actor, json: values.json === true }, io);
     } finally {
-      reader.close();
       // A station may keep its end open: stop reading so the process can exit after the decision.
-      process.stdin.destroy();
+      input.close();
       await service.close();
     }
   },

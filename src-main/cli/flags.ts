@@ -4,6 +4,8 @@
  * allowed range, which `runCommand` turns into one line on stderr and exit code 2.
  */
 import { z } from 'zod';
+import { idSchema } from '../store/ids.js';
+import { noteText, SHORT_TEXT_LIMIT, shortText, visibleText } from '../store/textFields.js';
 
 /** A bad flag or value: exit 2 with one line naming the flag and what is allowed. */
 export class UsageError extends Error {
@@ -65,8 +67,16 @@ export const flag = {
   /** One of a fixed set of words. */
   choice: <const T extends string>(...values: [T, ...T[]]): Flag<T> =>
     fromSchema(`one of ${values.join(', ')}`, z.enum(values) as unknown as z.ZodType<T>, (raw) => raw),
-  /** Any non-empty text, such as a file path ("-" for standard input where a command allows it). */
-  text: (allowed = 'a non-empty text'): Flag<string> => fromSchema(allowed, z.string().min(1), (raw) => raw),
+  /** A file or folder path ("-" for standard input where a command allows it): not blank, no control characters. */
+  path: (allowed = 'a file path'): Flag<string> => fromSchema(allowed, shortText('A path', 'A path cannot be blank.', 4096), (raw) => raw),
+  /** Text stored in a record (lot, names): the channels' rule, trimmed, printable, at most 120 characters. */
+  text: (what: string, limit = SHORT_TEXT_LIMIT): Flag<string> =>
+    fromSchema(`${what.charAt(0).toLowerCase()}${what.slice(1)}: printable text, 1 to ${limit} characters`, shortText(what, undefined, limit), (raw) => raw),
+  /** A free-text note: printable apart from tabs and line breaks, at most 2000 characters. */
+  note: (): Flag<string> => fromSchema('a note: printable text, at most 2000 characters', noteText('A note', 2000), (raw) => raw),
+  /** The id of a stored run, plan or source: the store's one id pattern. */
+  id: (kind: 'run' | 'plan' | 'source'): Flag<string> =>
+    fromSchema(`a ${kind} id (letters, digits, ".", "_" or "-", at most 80)`, idSchema(kind), (raw) => raw),
   /** A switch without a value. */
   switch: (): Flag<boolean> => ({ takesValue: false, allowed: 'no value', parse: () => true }),
 };
@@ -81,13 +91,13 @@ export function parseFlags<F extends FlagTable>(args: readonly string[], table: 
   for (let i = 0; i < args.length; i++) {
     const arg = args[i];
     if (!arg.startsWith('--')) {
-      throw new UsageError(arg, 'a flag', `unexpected argument ${JSON.stringify(arg)} (flags: ${flagList(table)})`);
+      throw new UsageError(arg, 'a flag', `unexpected argument ${shown(arg)} (flags: ${flagList(table)})`);
     }
     const equals = arg.indexOf('=');
     const name = equals < 0 ? arg.slice(2) : arg.slice(2, equals);
     const definition = Object.hasOwn(table, name) ? table[name] : undefined;
     if (definition === undefined) {
-      throw new UsageError(`--${name}`, flagList(table), `unknown flag --${name} (allowed: ${flagList(table)})`);
+      throw new UsageError(`--${name}`, flagList(table), `unknown flag ${visibleText(`--${name}`.slice(0, 60))} (allowed: ${flagList(table)})`);
     }
     if (Object.hasOwn(values, name)) {
       throw new UsageError(`--${name}`, 'given once', `--${name} is given more than once`);
@@ -102,6 +112,10 @@ export function parseFlags<F extends FlagTable>(args: readonly string[], table: 
       if (i + 1 >= args.length) {
         throw new UsageError(`--${name}`, definition.allowed, `--${name} needs a value: ${definition.allowed}`);
       }
+      // "--run --data-dir X": the next word is a flag, not this flag's value.
+      if (args[i + 1].startsWith('--')) {
+        throw new UsageError(`--${name}`, definition.allowed, `--${name} needs a value: ${definition.allowed} (got the flag ${shown(args[i + 1])})`);
+      }
       raw = args[++i];
     }
     try {
@@ -111,7 +125,7 @@ export function parseFlags<F extends FlagTable>(args: readonly string[], table: 
       throw new UsageError(
         `--${name}`,
         definition.allowed,
-        `--${name} must be ${definition.allowed} (got ${JSON.stringify(raw)})`,
+        `--${name} must be ${definition.allowed} (got ${shown(raw)})`,
       );
     }
   }
@@ -132,6 +146,12 @@ export function rejectFlags(values: Record<string, unknown>, names: readonly str
   for (const name of names) {
     if (values[name] !== undefined) throw new UsageError(`--${name}`, reason, `--${name} ${reason}`);
   }
+}
+
+/** A value the user typed, quoted for a one-line message: control characters escaped, long values cut. */
+export function shown(raw: string): string {
+  const quoted = JSON.stringify(raw.length > 60 ? `${raw.slice(0, 60)}...` : raw);
+  return `${visibleText(quoted)}${raw.length > 60 ? ` (${raw.length} characters)` : ''}`;
 }
 
 function flagList(table: FlagTable): string {

@@ -9,10 +9,9 @@ import type { CliIo, Command } from './command.js';
 import type { DecisionRecordInput } from '../record/recordInput.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { checkId } from '../store/index.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 
-const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), out: flag.text('a file path ending in .pdf') };
+const flags = { ...dataDirectoryFlags, run: flag.id('run'), out: flag.path('a file path ending in .pdf') };
 
 export const command: Command = {
   summary: 'write the decision record PDF of a run (interim while undecided)',
@@ -27,7 +26,6 @@ export const command: Command = {
     const runId = requireFlag<string>(values, 'run', flags);
     const out = requireFlag<string>(values, 'out', flags);
     if (!/\.pdf$/i.test(out)) throw new UsageError('--out', flags.out.allowed, `--out must be ${flags.out.allowed} (got ${JSON.stringify(out)})`);
-    requireRunId(runId);
     const input = await recordInputFor(args, runId, 'record', io);
     if (input === null) return EXIT_FAILURE;
     await writeDecisionRecord(input, out);
@@ -42,8 +40,10 @@ export const command: Command = {
  * exist or its journal does not verify.
  */
 export async function recordInputFor(args: readonly string[], runId: string, name: string, io: CliIo): Promise<DecisionRecordInput | null> {
+  const dataDirectory = await checkedDataDirectory(args);
+  await requireExistingRun(dataDirectory, runId);
   try {
-    return await decisionRecordForRun(dataDirectoryFor(args), runId);
+    return await decisionRecordForRun(dataDirectory, runId);
   } catch (error) {
     if (error instanceof RunNotFoundError || error instanceof RunJournalUnverifiedError) {
       io.stderr(`tallyline ${name}: ${error.message}\n`);
@@ -54,10 +54,3 @@ export async function recordInputFor(args: readonly string[], runId: string, nam
 }
 
 /** A run id that cannot name a journal file is a bad flag, not a missing run. */
-export function requireRunId(runId: string): void {
-  try {
-    checkId('run', runId);
-  } catch (error) {
-    throw new UsageError('--run', 'a run id', `--run: ${(error as Error).message}`);
-  }
-}

@@ -1,20 +1,21 @@
 /**
  * `tallyline replay`: feeds recorded results through a plan, one a line, and stops at the decision.
  * The live path, not a second one: each line is read by the `feed` parser (feedParse.ts), checked
- * as the run service checks an entry (resultProblem), and accumulated by the run's evidence
+ * as the run service checks an entry, and accumulated by the run's evidence
  * (inspection/runEvidence.ts), so the same results give the same decision here, in `feed` and in
  * the app.
  */
-import { RunEvidence, resultProblem, type RunState } from '../inspection/index.js';
+import { RunEvidence, type RunState } from '../inspection/index.js';
+import { countOf } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { parseFeedLine } from './feedParse.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { resultText } from './run.js';
 import { formatNumber, formatTable } from './table.js';
 
-const flags = { ...modelPlanFlags, results: flag.text('a file path, or - for standard input'), json: flag.switch() };
+const flags = { ...modelPlanFlags, results: flag.path('a file path, or - for standard input'), json: flag.switch() };
 
 /** The JSON summary per model: {decision, n, total | sum, llr, rule}, lifetime {decision, time, failures, llr, rule}, graded {decision, n, counts, llr, rule}. */
 function summaryOf(state: RunState, rule: string): Record<string, unknown> {
@@ -46,7 +47,7 @@ export const command: Command = {
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const spec = anyPlanSpecFromFlags(values);
+    const spec = planSpecFromFlags(values);
     const path = requireFlag<string>(values, 'results', flags);
     let text: string;
     try {
@@ -62,7 +63,7 @@ export const command: Command = {
     for (let index = 0; index < lines.length && state.decision === 'continue'; index += 1) {
       const parsed = parseFeedLine(spec, lines[index]);
       if (parsed === null) continue;
-      const problem = 'problem' in parsed ? parsed.problem : resultProblem(spec, parsed.result, evidence.time);
+      const problem = 'problem' in parsed ? parsed.problem : evidence.problem(parsed.result);
       if (problem !== null || 'problem' in parsed) {
         throw new UsageError('--results', 'one result a line, as feed reads them', `--results line ${index + 1}: ${problem}`);
       }
@@ -70,14 +71,13 @@ export const command: Command = {
       state = evidence.state();
       rows.push([String(state.n), resultText(parsed.result), evidenceCell(state), formatNumber(state.llr)]);
     }
-    const rule = evidence.decision().rule;
-    const summary = summaryOf(state, state.rule ?? rule);
+    const summary = summaryOf(state, state.rule ?? state.standing);
     if (values.json) {
       io.stdout(`${JSON.stringify(summary)}\n`);
     } else {
       const linear = state.model === undefined;
       const table = formatTable(['n', 'result', linear ? 'total' : 'evidence', 'LLR'], rows);
-      const counted = linear ? `after ${state.n} items, total ${state.total}` : `after ${state.n} entries, ${evidenceCell(state)}`;
+      const counted = linear ? `after ${countOf(state.n, 'item')}, total ${state.total}` : `after ${countOf(state.n, 'entry', 'entries')}, ${evidenceCell(state)}`;
       io.stdout(`${table}\n\nDecision: ${state.decision} ${counted} (${summary.rule})\n`);
     }
     return EXIT_OK;

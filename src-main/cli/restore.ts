@@ -4,9 +4,9 @@ import { ArchiveRefusedError, RestoreBlockedError, restoreArchive } from '../bac
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
-const flags = { ...dataDirectoryFlags, from: flag.text('an archive written by tallyline backup'), json: flag.switch() };
+const flags = { ...dataDirectoryFlags, from: flag.path('an archive written by tallyline backup'), json: flag.switch() };
 
 export const command: Command = {
   summary: 'replace the data folder with a verified archive (the old folder is kept)',
@@ -20,7 +20,11 @@ export const command: Command = {
     const values = parseFlags(args, flags);
     const from = requireFlag<string>(values, 'from', flags);
     try {
-      const report = await restoreArchive(await readFile(from), dataDirectoryFor(args));
+      const archive = await readFile(from).catch((error: NodeJS.ErrnoException) => {
+        error.path ??= from; // readFile of a folder does not say which
+        throw error;
+      });
+      const report = await restoreArchive(archive, await checkedDataDirectory(args, true));
       if (values.json === true) {
         io.stdout(`${JSON.stringify(report)}\n`);
       } else {

@@ -2,7 +2,7 @@
  * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
-import { checkAnyPlanSpec } from '../engine/index.js';
+import { checkPlanSpec, type PlanSpec } from '../engine/index.js';
 import {
   OUTCOME_WORDS,
   RunNotFoundError,
@@ -16,31 +16,31 @@ import {
   createRunService,
 } from '../inspection/index.js';
 import { PlanRepository, SourceRepository } from '../store/index.js';
+import { visibleJson, visibleText } from '../store/textFields.js';
 import type { Command } from './command.js';
-import { EXIT_FAILURE, EXIT_OK } from './command.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { CliFailure, EXIT_FAILURE, EXIT_OK } from './command.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
-import { requireRunId } from './record.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
 
-/** The data directory for these args, and a run service on it that the caller must close. */
-export function runServiceFor(args: readonly string[]): { dataDirectory: string; service: RunService } {
-  const dataDirectory = dataDirectoryFor(args);
+/** The checked data directory for these args, and a run service on it that the caller must close. */
+export async function runServiceFor(args: readonly string[], mayCreate = false): Promise<{ dataDirectory: string; service: RunService }> {
+  const dataDirectory = await checkedDataDirectory(args, mayCreate);
   return { dataDirectory, service: createRunService({ dataDirectory }) };
 }
 
 const startFlags = {
   ...modelPlanFlags,
   ...dataDirectoryFlags,
-  plan: flag.text('a saved plan id'),
+  plan: flag.id('plan'),
   'plan-version': flag.integer(1),
-  'plan-name': flag.text('a plan name'),
-  source: flag.text('a source name'),
-  lot: flag.text('a lot or batch id'),
+  'plan-name': flag.text('A plan name'),
+  source: flag.text('A source name'),
+  lot: flag.text('A lot or batch id'),
   'lot-size': flag.integer(1),
-  inspector: flag.text('a name'),
-  note: flag.text('a note'),
+  inspector: flag.text("The inspector's name"),
+  note: flag.note(),
   json: flag.switch(),
 };
 
@@ -62,28 +62,42 @@ export const startCommand: Command = {
     const values = parseFlags(args, startFlags);
     const sourceName = requireFlag<string>(values, 'source', startFlags);
     const lot = requireFlag<string>(values, 'lot', startFlags);
-    const { dataDirectory, service } = runServiceFor(args);
+    // Every input is checked before anything is written: the plan (saved or from flags), then the folder.
+    let inlineSpec: PlanSpec | null = null;
+    if (values.plan !== undefined) {
+      rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
+    } else {
+      if (values.model === undefined) {
+        throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
+      }
+      rejectFlags(values, ['plan-version'], 'applies to --plan only');
+      // Only the plan flags: the spec reader refuses any flag that is not its model's.
+      const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
+      inlineSpec = planSpecFromFlags(planValues);
+      checkPlanSpec(inlineSpec);
+    }
+    const { dataDirectory, service } = await runServiceFor(args, true);
     try {
+      const plans = new PlanRepository(dataDirectory);
+      if (values.plan !== undefined) {
+        const versions = await plans.versions(values.plan).catch((): number[] => []);
+        if (versions.length === 0) throw new CliFailure(`there is no saved plan ${values.plan} in the data folder ${dataDirectory}`);
+        const version = values['plan-version'];
+        if (version !== undefined && !versions.includes(version)) {
+          throw new CliFailure(`plan ${values.plan} has no version ${version} (it has ${versions.join(', ')})`);
+        }
+      }
       const { source } = await new SourceRepository(dataDirectory).findOrCreate(sourceName);
       let planId: string;
       let planVersion: number | undefined;
-      if (values.plan !== undefined) {
-        rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
-        planId = values.plan;
+      if (inlineSpec === null) {
+        planId = values.plan as string;
         planVersion = values['plan-version'];
       } else {
-        if (values.model === undefined) {
-          throw new UsageError('--plan', 'a saved plan id or plan flags', 'give --plan ID or the plan flags (--model ...)');
-        }
-        rejectFlags(values, ['plan-version'], 'applies to --plan only');
-        // Only the plan flags: the spec reader refuses any flag that is not its model's.
-        const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
-        const spec = anyPlanSpecFromFlags(planValues);
-        checkAnyPlanSpec(spec);
-        const saved = await new PlanRepository(dataDirectory).save({
-          name: values['plan-name'] ?? `${sourceName} ${spec.model} plan`,
+        const saved = await plans.save({
+          name: values['plan-name'] ?? `${sourceName} ${inlineSpec.model} plan`,
           sourceId: source.id,
-          spec,
+          spec: inlineSpec,
         });
         planId = saved.id;
         planVersion = saved.version;
@@ -105,7 +119,7 @@ export const startCommand: Command = {
   },
 };
 
-const showFlags = { ...dataDirectoryFlags, run: flag.text('a run id'), json: flag.switch() };
+const showFlags = { ...dataDirectoryFlags, run: flag.id('run'), json: flag.switch() };
 
 /**
  * The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}},
@@ -165,10 +179,11 @@ export const showCommand: Command = {
   async run(args, io) {
     const values = parseFlags(args, showFlags);
     const runId = requireFlag<string>(values, 'run', showFlags);
-    requireRunId(runId);
+    const dataDirectory = await checkedDataDirectory(args);
+    await requireExistingRun(dataDirectory, runId);
     let read;
     try {
-      read = await createRunCatalogue(dataDirectoryFor(args)).readRun(runId);
+      read = await createRunCatalogue(dataDirectory).readRun(runId);
     } catch (error) {
       if (!(error instanceof RunNotFoundError)) throw error;
       io.stderr(`tallyline run show: ${error.message}\n`);
@@ -180,7 +195,7 @@ export const showCommand: Command = {
     }
     const view = runView(read.replay, { writable: read.damage === null, problems: [...read.problems], recovered: null, fingerprint: read.fingerprint, damage: read.damage });
     if (values.json === true) {
-      io.stdout(`${JSON.stringify(showJson(view, read.history))}\n`);
+      io.stdout(`${visibleJson(showJson(view, read.history))}\n`);
     } else {
       const { run, state } = view;
       io.stdout(
@@ -191,7 +206,10 @@ export const showCommand: Command = {
           ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
           ...(read.history.length === 0 ? [] : ['Decisions:', ...read.history.map(historyText)]),
           ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
-        ].join('\n') + '\n',
+        ]
+          // Text from the journal is escaped: records written before the printable rule may hold control characters.
+          .map(visibleText)
+          .join('\n') + '\n',
       );
     }
     return EXIT_OK;

@@ -6,14 +6,13 @@
 import { readFile } from 'node:fs/promises';
 import { fingerprintFromPdf, recordFingerprintMismatches } from '../record/fingerprintFromPdf.js';
 import { RunNotFoundError, createRunCatalogue } from '../inspection/index.js';
-import type { JournalVerification } from '../store/index.js';
+import { anchorHolds, type JournalVerification } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { requireRunId } from './record.js';
-import { dataDirectoryFlags, dataDirectoryFor } from './dataFolderFlag.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 
-const flags = { ...dataDirectoryFlags, run: flag.text('a run id'), pdf: flag.text('a decision record PDF'), json: flag.switch() };
+const flags = { ...dataDirectoryFlags, run: flag.id('run'), pdf: flag.path('a decision record PDF'), json: flag.switch() };
 
 /** What a record PDF says against the journal: each copy of its fingerprint, and which differ. */
 interface RecordCheck {
@@ -53,19 +52,27 @@ export const command: Command = {
   usage: [
     'Usage: tallyline verify --run ID [--pdf FILE] [--data-dir DIR] [--json]',
     '  --pdf FILE                 also check the fingerprint printed in this decision record and in its metadata',
-    '  --json                     print {ok, entries, fingerprint, problems: [{seq, line, problem, kind}]}',
+    '  --json                     print {ok, entries, fingerprint, problems: [{seq, line, problem, kind}], anchor: {status, seq, fingerprint}}',
     '                             and with --pdf also record: {file, printed, metadata, matches, differs}',
     '  exit code 0 when the chain verifies (and the record matches), 1 when not',
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
     const runId = requireFlag<string>(values, 'run', flags);
-    requireRunId(runId);
+    const dataDirectory = await checkedDataDirectory(args);
+    await requireExistingRun(dataDirectory, runId);
     let report: JournalVerification;
     try {
-      const read = await createRunCatalogue(dataDirectoryFor(args)).readRun(runId);
-      // The chain, and every entry replaying as one this app writes: a re-hashed forgery of a result fails here.
-      report = { ok: read.problems.length === 0, entries: read.entries.length, fingerprint: read.fingerprint, problems: [...read.problems] };
+      const read = await createRunCatalogue(dataDirectory).readRun(runId);
+      // The chain, the anchor, and every entry replaying as one this app writes: a re-hashed forgery of a result fails here.
+      const anchor = read.anchor ?? { status: 'missing' as const, anchor: null };
+      report = {
+        ok: read.problems.length === 0 && anchorHolds(anchor.status),
+        entries: read.entries.length,
+        fingerprint: read.fingerprint,
+        problems: [...read.problems],
+        anchor: { status: anchor.status, ...(anchor.anchor ?? {}) },
+      };
     } catch (error) {
       if (!(error instanceof RunNotFoundError)) throw error;
       io.stderr(`tallyline verify: ${error.message}\n`);
@@ -76,9 +83,15 @@ export const command: Command = {
     if (values.json === true) {
       io.stdout(`${JSON.stringify(record === null ? report : { ...report, ok, record })}\n`);
     } else {
+      const anchorLine =
+        report.anchor.status === 'missing'
+          ? ['  no anchor file beside the journal: its last entries cannot be checked against anything outside it']
+          : report.anchor.status === 'one-ahead'
+            ? [`  the last entry is one past its anchor (seq ${report.anchor.seq}): a crash between journal and anchor; opening the run anchors it`]
+            : [];
       const chain = report.ok
-        ? [`Run ${runId}: chain verifies, ${report.entries} entries, fingerprint ${report.fingerprint}`]
-        : [`Run ${runId}: chain does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`)];
+        ? [`Run ${runId}: chain verifies, ${report.entries} entries, fingerprint ${report.fingerprint}`, ...anchorLine]
+        : [`Run ${runId}: chain does NOT verify`, ...report.problems.map((p) => `  seq ${p.seq} (line ${p.line}): ${p.problem}`), ...anchorLine];
       io.stdout([...chain, ...(record === null ? [] : recordLines(record, report))].join('\n') + '\n');
     }
     return ok ? EXIT_OK : EXIT_FAILURE;

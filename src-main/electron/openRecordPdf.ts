@@ -1,4 +1,4 @@
-import { mkdir, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { z } from 'zod';
 import type { IpcRegistrar } from './ipcAdapter.js';
@@ -12,7 +12,7 @@ const payloadSchema = z.object({
 });
 
 export interface OpenRecordPdfDependencies {
-  /** A folder of the app's own for records handed to the viewer (e.g. under the OS temp folder). */
+  /** A private folder of the app's own (mode 0700, made with mkdtemp, removed on quit) for records handed to the viewer. */
   folder: string;
   /** Electron's shell.openPath: resolves to '' on success or an error message. */
   openPath: (path: string) => Promise<string>;
@@ -33,10 +33,26 @@ export function registerOpenRecordPdf(ipc: Pick<IpcRegistrar, 'handle'>, depende
       const issue = parsed.error.issues[0];
       return { ok: false, code: 'invalid-payload', message: `${issue?.path.join('.')}: ${issue?.message}` };
     }
-    await mkdir(dependencies.folder, { recursive: true });
-    const path = join(dependencies.folder, parsed.data.fileName);
-    await writeFile(path, Buffer.from(parsed.data.base64, 'base64'));
+    const path = await writeNewFile(dependencies.folder, parsed.data.fileName, Buffer.from(parsed.data.base64, 'base64'));
     const failure = await dependencies.openPath(path);
     return failure === '' ? { ok: true, value: path } : { ok: false, code: 'internal', message: `The PDF is saved at ${path} but no viewer opened it: ${failure}` };
   });
+}
+
+/**
+ * Writes bytes to a file that did not exist before (exclusive create, owner-only mode), so nothing
+ * planted in the folder (a symlink, an older file) is followed or overwritten; a name already
+ * taken gets a number: `record.pdf`, `record-2.pdf`, ...
+ */
+async function writeNewFile(folder: string, fileName: string, bytes: Buffer): Promise<string> {
+  const stem = fileName.slice(0, -'.pdf'.length);
+  for (let attempt = 1; ; attempt++) {
+    const path = join(folder, attempt === 1 ? fileName : `${stem}-${attempt}.pdf`);
+    try {
+      await writeFile(path, bytes, { flag: 'wx', mode: 0o600 });
+      return path;
+    } catch (error) {
+      if ((error as NodeJS.ErrnoException).code !== 'EEXIST' || attempt >= 1000) throw error;
+    }
+  }
 }

@@ -1,5 +1,8 @@
 import { PlanParameterError, formatValue } from './errors.js';
 
+/** Largest truncation in items: the limits table and the exact curves grow with it (README "Limits"). */
+export const MAX_TRUNCATION = 100_000;
+
 /** Throws unless `value` is a finite number strictly between 0 and 1. */
 export function checkProbability(parameter: string, value: unknown): asserts value is number {
   if (typeof value !== 'number' || !Number.isFinite(value) || value <= 0 || value >= 1) {
@@ -45,8 +48,8 @@ export function checkRisksAndTruncation(spec: {
   }
   const truncation = spec.truncation;
   if (truncation !== undefined && truncation !== null) {
-    if (typeof truncation !== 'number' || !Number.isInteger(truncation) || truncation < 1) {
-      throw new PlanParameterError('truncation', truncation, 'a positive integer or null');
+    if (typeof truncation !== 'number' || !Number.isInteger(truncation) || truncation < 1 || truncation > MAX_TRUNCATION) {
+      throw new PlanParameterError('truncation', truncation, `an integer from 1 to ${MAX_TRUNCATION} or none`);
     }
   }
   if (spec.fit !== undefined && spec.fit !== 'wald' && spec.fit !== 'exact') {

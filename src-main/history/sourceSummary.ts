@@ -3,7 +3,7 @@
  * nonconforming found, the decisions over time, and the pooled fraction with its caveat.
  * Pure: takes the runs as plain data, reads nothing.
  */
-import type { PlanSpec } from '../engine/index.js';
+import type { LinearCountSpec } from '../engine/index.js';
 import type { RunRow } from '../inspection/runCatalogue.js';
 
 /** One run as the summary needs it: the catalogue's row (inspection/runCatalogue.ts) carries these fields. */
@@ -11,7 +11,7 @@ export type SummaryRun = Pick<RunRow, 'runId' | 'outcome' | 'startedAt' | 'model
 
 /** The pooled figure of one data model: sums over the decided runs of that model. */
 export interface PooledFigure {
-  readonly model: PlanSpec['model'];
+  readonly model: LinearCountSpec['model'];
   readonly runs: number;
   readonly itemsInspected: number;
   readonly nonconformingFound: number;
@@ -74,7 +74,7 @@ export function summariseSource(runs: readonly SummaryRun[]): SourceSummary {
     list.reduce((total, run) => total + run[key], 0);
 
   // Only fractions and rates per item pool; measurements, test times and grades have no such figure.
-  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is PlanSpec['model'] => model === 'passfail' || model === 'count').sort();
+  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is LinearCountSpec['model'] => model === 'passfail' || model === 'count').sort();
   const pooled = models.map((model): PooledFigure => {
     const ofModel = decided.filter((run) => run.model === model);
     const itemsInspected = sum(ofModel, 'itemsInspected');

@@ -43,7 +43,16 @@ export async function startBrowserHost(options: BrowserHostOptions): Promise<Bro
     const authority = checkAuthority(request, port);
     if (!authority.allowed) return send(response, authority.status, 'text/plain', authority.reason);
     const path = new URL(request.url ?? '/', 'http://127.0.0.1').pathname;
-    if (path.startsWith(apiPrefix)) return serveChannel(request, response, path.slice(apiPrefix.length));
+    let decodedPath: string;
+    try {
+      decodedPath = decodeURIComponent(path);
+    } catch {
+      // A malformed % escape (e.g. "%E0%A4%A") is the client's mistake: 400, never a server error.
+      const message = 'The address has a malformed % escape.';
+      if (path.startsWith(apiPrefix)) return send(response, 400, 'application/json', JSON.stringify({ ok: false, code: 'invalid-payload', message }));
+      return send(response, 400, 'text/plain', message);
+    }
+    if (path.startsWith(apiPrefix)) return serveChannel(request, response, decodedPath.slice(apiPrefix.length));
     if (request.method !== 'GET' && request.method !== 'HEAD') return send(response, 405, 'text/plain', 'Method not allowed.');
     const file = await readStaticFile(options.rendererRoot, path);
     if (!file) return send(response, 404, 'text/plain', 'Not found.');
@@ -62,7 +71,7 @@ export async function startBrowserHost(options: BrowserHostOptions): Promise<Bro
     } catch {
       return send(response, 400, 'application/json', JSON.stringify({ ok: false, code: 'invalid-payload', message: 'The request body is not JSON.' }));
     }
-    const result = await options.dispatch(decodeURIComponent(channel), payload);
+    const result = await options.dispatch(channel, payload);
     send(response, 200, 'application/json', JSON.stringify(result));
   }
 
@@ -75,7 +84,12 @@ export async function startBrowserHost(options: BrowserHostOptions): Promise<Bro
     url: `http://127.0.0.1:${port}/#token=${token}`,
     port,
     token,
-    close: () => new Promise((resolve) => server.close(() => resolve())),
+    // A browser keeps its connections open; end them so a stop (SIGTERM, window closed) finishes at once.
+    close: () =>
+      new Promise((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      }),
   };
 }
 

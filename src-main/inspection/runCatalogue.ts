@@ -15,8 +15,8 @@
 import type { Stats } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import path from 'node:path';
-import type { AnyPlanSpec } from '../engine/index.js';
-import { analyseJournal, checkId, folderNames, layout, type JournalEntry, type JournalProblem } from '../store/index.js';
+import type { PlanSpec } from '../engine/index.js';
+import { analyseJournal, checkAnchor, checkId, folderNames, layout, readAnchorBytes, withAnchor, type AnchorCheck, type JournalEntry, type JournalProblem } from '../store/index.js';
 import { localTimestamp } from './localTime.js';
 import { RunJournalContentError, RunReplay } from './runReplay.js';
 import type { RunOutcome } from './runOutcome.js';
@@ -54,7 +54,7 @@ export interface RunRow {
   readonly planId: string | null;
   readonly planName: string | null;
   readonly planVersion: number | null;
-  readonly model: AnyPlanSpec['model'] | null;
+  readonly model: PlanSpec['model'] | null;
   /** From the plan version, when it named them. */
   readonly part: string | null;
   readonly characteristic: string | null;
@@ -78,8 +78,10 @@ export interface RunRead {
   readonly entries: readonly JournalEntry[];
   /** SHA-256 of the journal's last intact line, null for an empty file. */
   readonly fingerprint: string | null;
-  /** What is wrong with the journal: chain problems, a torn tail, and an entry that does not replay. */
+  /** What is wrong with the journal: chain problems, a torn tail, the anchor's problem, and an entry that does not replay. */
   readonly problems: readonly JournalProblem[];
+  /** How the journal stands against its anchor file; null when the read was not given the anchor. */
+  readonly anchor: AnchorCheck | null;
   /** The replay of the good prefix; null when not even the header can be read. */
   readonly replay: RunReplay | null;
   readonly damage: RunDamage | null;
@@ -156,10 +158,15 @@ export function compareRows(a: RunRow, b: RunRow): number {
   return time(b) - time(a) || a.runId.localeCompare(b.runId);
 }
 
-/** Reads the bytes of one journal: a verified, replayed picture of the run. Pure apart from its input. */
-export function readRunBytes(runId: string, bytes: Buffer): RunRead {
+/**
+ * Reads the bytes of one journal: a verified, replayed picture of the run. Pure apart from its input.
+ * With the anchor file's bytes (null when there is none) the journal is also checked against its
+ * anchor; `laterAnchorBytes` is the anchor read again after the journal (see checkAnchor).
+ */
+export function readRunBytes(runId: string, bytes: Buffer, anchorFile?: Buffer | null, laterAnchorBytes?: Buffer | null): RunRead {
   const analysis = analyseJournal(bytes);
-  const problems: JournalProblem[] = [...analysis.problems];
+  const anchor = anchorFile === undefined ? null : checkAnchor(analysis, anchorFile, laterAnchorBytes);
+  const problems: JournalProblem[] = [...(anchor === null ? analysis.problems : withAnchor(analysis, anchor).problems)];
   const firstChainBreak = Math.min(Infinity, ...problems.filter((problem) => problem.kind === 'tampered').map((problem) => problem.seq));
 
   // The good prefix: entries in sequence from 0, before the first break of the chain.
@@ -194,7 +201,7 @@ export function readRunBytes(runId: string, bytes: Buffer): RunRead {
 
   const firstTampered = problems.filter((problem) => problem.kind === 'tampered').sort((a, b) => a.seq - b.seq)[0];
   const damage: RunDamage | null = firstTampered === undefined ? null : { firstBadSeq: firstTampered.seq, problem: firstTampered.problem };
-  return { runId, entries, fingerprint: analysis.fingerprint, problems, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
+  return { runId, entries, fingerprint: analysis.fingerprint, problems, anchor, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
 }
 
 function decisionEvent(entry: JournalEntry, replay: RunReplay): DecisionEvent | null {
@@ -276,8 +283,13 @@ export function createRunCatalogue(dataDirectory: string) {
     }
     try {
       // The key is taken before the bytes: a change during the read makes the next listing read again.
+      // The anchor is read before the journal: a writer fsyncs the journal before it replaces the anchor.
       const key = fileKey(await handle.stat());
-      const read = readRunBytes(runId, await handle.readFile());
+      const anchorFile = await readAnchorBytes(journalPath);
+      const bytes = await handle.readFile();
+      let read = readRunBytes(runId, bytes, anchorFile);
+      // A busy writer can be several entries past the anchor read first: read the anchor again.
+      if (read.anchor?.status === 'ahead') read = readRunBytes(runId, bytes, anchorFile, await readAnchorBytes(journalPath));
       journalsRead += 1;
       rows.set(runId, { key, row: read.row });
       return read;

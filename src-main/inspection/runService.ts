@@ -4,7 +4,7 @@
  * journal append, acknowledged only once it is on disk; the run closes itself with the engine's
  * decision and rule as soon as the statistics reach one.
  */
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 import {
   JournalBusyError,
   JournalTamperedError,
@@ -19,7 +19,7 @@ import {
 import { createRunCatalogue, RunUnreadableError, type RunCatalogue } from './runCatalogue.js';
 import { RunJournalContentError, RunReplay } from './runReplay.js';
 import { runView } from './runView.js';
-import { gradeIndex, resultProblem } from './runState.js';
+import { canonicalResult } from './runState.js';
 import type { ItemResult, RunEntryView, RunState, RunView } from './runTypes.js';
 
 export interface StartRunInput {
@@ -221,7 +221,7 @@ export function createRunService(options: RunServiceOptions) {
         const handle = await writable(runId);
         openForEntry(runId, handle);
         const spec = handle.replay.header.plan.spec;
-        const problem = resultProblem(spec, input.result, handle.replay.evidence.time);
+        const problem = handle.replay.evidence.problem(input.result);
         if (problem !== null) throw new ResultRefusedError(spec.model, problem);
         const entry = await handle.writer.append('result', input.actor, {
           itemId: input.itemId?.trim() || null,
@@ -283,10 +283,4 @@ export function createRunService(options: RunServiceOptions) {
       await Promise.all(handles.map((handle) => handle.writer.close()));
     },
   };
-}
-
-/** A graded result names its class exactly as the plan spells it; other results are kept as given. */
-function canonicalResult(spec: AnyPlanSpec, result: ItemResult): ItemResult {
-  if (spec.model !== 'graded' || typeof result !== 'object' || !('grade' in result)) return result;
-  return { grade: spec.classes[gradeIndex(spec.classes, result.grade)] };
 }

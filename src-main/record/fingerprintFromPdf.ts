@@ -1,4 +1,5 @@
 import { FINGERPRINT_LABEL } from './closingSections.js';
+import { pdfText } from './pdfText.js';
 
 const KEYWORD_PREFIX = 'tallyline-fingerprint:sha256:';
 const KEYWORD_PATTERN = /tallyline-fingerprint:sha256:([0-9a-f]{64})/g;
@@ -34,31 +35,10 @@ export function fingerprintFromText(text: string): string | null {
   return match ? match[0] : null;
 }
 
-/** All text of a PDF, page after page, one line per text line (pdfjs-dist, legacy build for Node). */
-export async function pdfText(pdf: Uint8Array): Promise<string[]> {
-  const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
-  // pdfjs takes ownership of (and detaches) the buffer it is given: hand it a copy.
-  const document = await pdfjs.getDocument({ data: new Uint8Array(pdf), isEvalSupported: false, verbosity: 0 }).promise;
-  try {
-    const pages: string[] = [];
-    for (let number = 1; number <= document.numPages; number++) {
-      const page = await document.getPage(number);
-      const content = await page.getTextContent();
-      let text = '';
-      for (const item of content.items) {
-        if ('str' in item) text += item.str + (item.hasEOL ? '\n' : '');
-      }
-      pages.push(text);
-    }
-    return pages;
-  } finally {
-    await document.destroy();
-  }
-}
-
 /** Reads the fingerprint a record PDF prints and the copies it carries in its metadata. */
 export async function fingerprintFromPdf(pdf: Uint8Array): Promise<RecordPdfFingerprint> {
-  const pages = await pdfText(pdf);
+  // The page text is read by the app's own small PDF reader (no native parts, nothing to install).
+  const pages = pdfText(pdf);
   return { printed: fingerprintFromText(pages.join('\n')), metadata: fingerprintFromPdfMetadata(pdf) };
 }
 

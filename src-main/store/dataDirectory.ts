@@ -19,6 +19,13 @@ export interface DataDirectoryInputs {
 }
 
 export const APP_FOLDER_NAME = 'Tallyline';
+/**
+ * On macOS and Windows, Electron keeps its own profile (caches, cookies, the single-instance lock)
+ * in `<app data>/Tallyline`; the data sit beside it in a folder of their own, so a restore that
+ * swaps the data folder never moves the live profile and no Chromium file lands among the data.
+ * (On Linux the profile is under ~/.config and the data under ~/.local/share already.)
+ */
+export const DESKTOP_DATA_FOLDER_NAME = 'Tallyline Data';
 
 /** The value of `--data-dir`, or undefined when the flag is absent. Throws when it has no value. */
 export function dataDirectoryFlag(argv: readonly string[]): string | undefined {
@@ -48,10 +55,10 @@ export function platformDataDirectory(
 ): string {
   if (platform === 'win32') {
     const appData = nonEmpty(env.APPDATA) ?? path.win32.join(home, 'AppData', 'Roaming');
-    return path.win32.join(appData, APP_FOLDER_NAME);
+    return path.win32.join(appData, DESKTOP_DATA_FOLDER_NAME);
   }
   if (platform === 'darwin') {
-    return path.posix.join(home, 'Library', 'Application Support', APP_FOLDER_NAME);
+    return path.posix.join(home, 'Library', 'Application Support', DESKTOP_DATA_FOLDER_NAME);
   }
   const xdg = nonEmpty(env.XDG_DATA_HOME);
   // XDG Base Directory spec: a relative XDG_DATA_HOME is invalid and must be ignored.

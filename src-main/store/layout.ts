@@ -9,13 +9,12 @@
  *   <data>/runs/<runId>.lock                  pid of the process writing that journal
  */
 import path from 'node:path';
-
-const SAFE_ID = /^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/;
+import { ID_ALLOWED, ID_PATTERN } from './ids.js';
 
 /** Ids become file names: refuse anything that could leave its folder. */
 export function checkId(kind: string, id: string): string {
-  if (!SAFE_ID.test(id) || id.includes('..')) {
-    throw new Error(`${kind} id ${JSON.stringify(id)} is not allowed: use letters, digits, ".", "_" or "-" (at most 80)`);
+  if (!ID_PATTERN.test(id)) {
+    throw new Error(`${kind} id ${JSON.stringify(id)} is not allowed: use ${ID_ALLOWED}`);
   }
   return id;
 }

@@ -5,9 +5,9 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { ChannelResult } from '../../src-main/api/result.js';
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
-import { designPlan } from '../../src-main/engine/index.js';
+import { designLinearCountPlan } from '../../src-main/engine/index.js';
 
-// NIST/SEMATECH e-Handbook §6.2.6 example inputs (reference-values CV-02/03).
+// NIST/SEMATECH e-Handbook §6.2.6 example inputs (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
 const nistExample = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 } as const;
 
 let dataDirectory: string;
@@ -26,18 +26,18 @@ function valueOf<T>(result: ChannelResult<unknown>): T {
   return result.value as T;
 }
 
-type Designed = { superseded: false; spec: { truncation?: number | null }; design: ReturnType<typeof designPlan> };
+type Designed = { superseded: false; spec: { truncation?: number | null }; design: ReturnType<typeof designLinearCountPlan> };
 
 describe('plan.design', () => {
   it('answers with exactly what the engine designs for the spec', async () => {
     const answer = valueOf<Designed>(await dispatch('plan.design', { spec: nistExample, curvePoints: 21 }));
     expect(answer.superseded).toBe(false);
-    expect(answer.design).toEqual(designPlan(nistExample, { curvePoints: 21 }));
-    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // reference-values CV-08
+    expect(answer.design).toEqual(designLinearCountPlan(nistExample, { curvePoints: 21 }));
+    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // Montgomery §15.2.3 (first-hand), minimal plans computed independently
   });
 
   it('truncates at the engine suggestion when asked to, and says which truncation it used', async () => {
-    const untruncated = designPlan(nistExample);
+    const untruncated = designLinearCountPlan(nistExample);
     const answer = valueOf<Designed>(await dispatch('plan.design', { spec: { ...nistExample, truncation: 500 }, suggestTruncation: true }));
     expect(answer.spec.truncation).toBe(untruncated.suggestedTruncation);
     expect(answer.design.truncation).toBe(untruncated.suggestedTruncation);
@@ -47,7 +47,7 @@ describe('plan.design', () => {
     const older = dispatch('plan.design', { spec: nistExample, stream: 's', ticket: 1 });
     const newer = dispatch('plan.design', { spec: { ...nistExample, p1: 0.12 }, stream: 's', ticket: 2 });
     expect(valueOf<{ superseded: boolean }>(await older)).toEqual({ superseded: true });
-    expect(valueOf<Designed>(await newer).design.boundaries.h1).toBeCloseTo(designPlan({ ...nistExample, p1: 0.12 }).boundaries.h1, 12);
+    expect(valueOf<Designed>(await newer).design.boundaries.h1).toBeCloseTo(designLinearCountPlan({ ...nistExample, p1: 0.12 }).boundaries.h1, 12);
   });
 
   it('refuses an impossible plan with the engine message and the parameter as field', async () => {
@@ -104,9 +104,11 @@ describe('saving, versions, export and import', () => {
     expect(!result.ok && result.message).toMatch(message);
   });
 
-  it('refuses an imported plan the engine refuses, naming the parameter', async () => {
+  it('refuses an imported plan the engine refuses, naming the parameter and the engine\'s reason', async () => {
     const text = JSON.stringify({ format: 'tallyline.plan/1', id: 'plan-1', version: 1, name: 'x', sourceId: null, createdAt: 'x', spec: { ...nistExample, p1: 0.005 } });
-    expect(await dispatch('plan.import', { text })).toMatchObject({ ok: false, code: 'invalid-parameter', field: 'p1' });
+    const answer = await dispatch('plan.import', { text });
+    expect(answer).toMatchObject({ ok: false, code: 'invalid-payload', field: 'file' });
+    expect((answer as { message: string }).message).toMatch(/"spec\.p1".*p1 must be greater than p0/);
   });
 
   it('answers not-found for a plan or version that does not exist', async () => {

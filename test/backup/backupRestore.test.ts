@@ -4,8 +4,10 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import { gunzip, gzip } from 'node:zlib';
 import { afterEach, describe, expect, it } from 'vitest';
+import { createHash } from 'node:crypto';
 import { ARCHIVE_FORMAT, ArchiveRefusedError, RestoreBlockedError, exportArchive, restoreArchive, unpackArchive } from '../../src-main/backup/index.js';
 import { seedDemo } from '../../src-main/demo/index.js';
+import { GENESIS_HASH, anchorFileBytes, entryLine, lineHash, verifyJournal, type JournalEntry } from '../../src-main/store/index.js';
 
 const folders: string[] = [];
 afterEach(async () => {
@@ -126,7 +128,7 @@ describe('backup and restore', () => {
 
   it('refuses to restore while a live process holds a run of the current data open', async () => {
     const { current, archive } = await setUp();
-    const runs = await readdir(path.join(current, 'runs'));
+    const runs = (await readdir(path.join(current, 'runs'))).filter((name) => name.endsWith('.journal'));
     await writeFile(path.join(current, 'runs', runs[0].replace('.journal', '.lock')), String(process.pid));
     await expect(restoreArchive(archive, current)).rejects.toThrow(RestoreBlockedError);
     await expect(restoreArchive(archive, current)).rejects.toThrow(/open for entry in this Tallyline/);
@@ -140,4 +142,78 @@ describe('backup and restore', () => {
     expect(exported.skipped).toEqual(['notes.txt']);
     expect(exported.manifest.files.some((file) => file.path.endsWith('.lock'))).toBe(false);
   });
+
+  it('refuses an archive that unpacks to far more than its manifest accounts for', async () => {
+    const { current } = await setUp();
+    const settings = Buffer.from('{}');
+    const manifest = { format: ARCHIVE_FORMAT, createdAt: '2026-06-01T00:00:00.000Z', files: [{ path: 'settings.json', bytes: settings.length, sha256: createHash('sha256').update(settings).digest('hex') }] };
+    // 64 MB of base64 where the manifest lists 2 bytes: about 64 KB once gzip'd.
+    const bomb = `${JSON.stringify(manifest)}\n{"path":"settings.json","base64":"${'A'.repeat(64 * 1024 * 1024)}"}\n{"end":true,"files":1}\n`;
+    const archive = await packed(bomb);
+    expect(archive.length).toBeLessThan(1024 * 1024);
+    await expectRefusedAndUntouched(archive, current, /it unpacks to more than the \d+ bytes its manifest accounts for \(1 files\)/);
+    await expectRefusedAndUntouched(await packed('x'.repeat(20 * 1024 * 1024)), current, /its first line runs past 16777216 bytes without ending/);
+  });
+
+  it('refuses an archive whose journal, consistently re-hashed and re-listed, holds a result the run cannot replay', async () => {
+    const { current, archive } = await setUp();
+    const doctored = await doctorJournal(archive, (lines) => lines.map((line) => line.replace('"result":"pass"', '"result":"maybe"')), true);
+    await expectRefusedAndUntouched(doctored.archive, current, new RegExp(`the journal "${doctored.path}" does not replay: seq ${doctored.firstChangedSeq}: payload field "result"`));
+  });
+
+  it('refuses an archive whose journal lost its last line when the anchor archived beside it still names that line', async () => {
+    const { current, archive } = await setUp();
+    const doctored = await doctorJournal(archive, (lines) => lines.slice(0, -1), false);
+    await expectRefusedAndUntouched(doctored.archive, current, new RegExp(`the journal "${doctored.path}" does not stand against its anchor as it did at backup \\(anchored then, behind now`));
+  });
+
+  it('restores an archive made before anchors were kept and anchors its journals', async () => {
+    const { archive } = await setUp();
+    const lines = (await textOf(archive)).trimEnd().split('\n');
+    const manifest = JSON.parse(lines[0]);
+    const keep = manifest.files.map((file: { path: string }) => !file.path.endsWith('.anchor'));
+    const files = manifest.files.filter((_: unknown, index: number) => keep[index]).map(({ journal, ...file }: { journal?: Record<string, unknown> }) =>
+      journal === undefined ? file : { ...file, journal: { ok: journal.ok, entries: journal.entries, fingerprint: journal.fingerprint } },
+    );
+    const older = [JSON.stringify({ ...manifest, files }), ...lines.slice(1, -1).filter((_, index) => keep[index]), JSON.stringify({ end: true, files: files.length })];
+    const fresh = path.join(await tempFolder(), 'from-older');
+    const report = await restoreArchive(await packed(older.join('\n') + '\n'), fresh);
+    expect(report.damagedAtBackup).toEqual([]);
+    const journals = (await readdir(path.join(fresh, 'runs'))).filter((name) => name.endsWith('.journal'));
+    expect(journals).toHaveLength(13);
+    for (const name of journals) expect(await verifyJournal(path.join(fresh, 'runs', name))).toMatchObject({ ok: true, anchor: { status: 'anchored' } });
+  });
 });
+
+/**
+ * Changes one journal inside an archive as a forger who knows every format would: the chain is
+ * re-linked, the manifest's size, SHA-256 and chain check rewritten; with `reanchor` the anchor
+ * file and its manifest entry too (so only the replay can tell).
+ */
+async function doctorJournal(archive: Buffer, change: (lines: string[]) => string[], reanchor: boolean) {
+  const lines = (await textOf(archive)).trimEnd().split('\n');
+  const manifest = JSON.parse(lines[0]);
+  const index = manifest.files.findIndex((file: { path: string; journal?: { entries: number } }) => file.path.endsWith('.journal') && (file.journal?.entries ?? 0) > 8);
+  const journalPath: string = manifest.files[index].path;
+  const original = Buffer.from(JSON.parse(lines[index + 1]).base64, 'base64').toString('utf8').trimEnd().split('\n');
+  const changed = change(original);
+  let previous = GENESIS_HASH;
+  const relinked = changed.map((line) => {
+    const out = entryLine({ ...(JSON.parse(line) as JournalEntry), previous });
+    previous = lineHash(out);
+    return out;
+  });
+  const firstChangedSeq = changed.findIndex((line, seq) => line !== original[seq]);
+  const sha = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+  const put = (at: number, bytes: Buffer, extra: Record<string, unknown>) => {
+    manifest.files[at] = { ...manifest.files[at], bytes: bytes.length, sha256: sha(bytes), ...extra };
+    lines[at + 1] = JSON.stringify({ path: manifest.files[at].path, base64: bytes.toString('base64') });
+  };
+  const anchor = { seq: relinked.length - 1, fingerprint: previous };
+  put(index, Buffer.from(relinked.join('\n') + '\n'), {
+    journal: { ok: true, entries: relinked.length, fingerprint: previous, anchor: reanchor ? { status: 'anchored', ...anchor } : manifest.files[index].journal.anchor },
+  });
+  if (reanchor) put(manifest.files.findIndex((file: { path: string }) => file.path === journalPath.replace('.journal', '.anchor')), anchorFileBytes(anchor), {});
+  lines[0] = JSON.stringify(manifest);
+  return { archive: await packed(lines.join('\n') + '\n'), path: journalPath, firstChangedSeq };
+}

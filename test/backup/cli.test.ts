@@ -25,12 +25,13 @@ describe('tallyline demo, backup and restore on the real command line', () => {
     const archive = path.join(root, 'all.tallyline-archive');
     const backup = await runCli(['backup', '--out', archive, '--data-dir', data, '--json']);
     expect(backup.code).toBe(0);
-    expect(JSON.parse(backup.stdout)).toMatchObject({ file: archive, files: 20, skipped: [], damagedJournals: [] });
+    // settings, 3 sources, 3 plan versions, 13 journals and their 13 anchors
+    expect(JSON.parse(backup.stdout)).toMatchObject({ file: archive, files: 33, skipped: [], damagedJournals: [] });
 
     const restoredInto = path.join(root, 'restored');
     const restore = await runCli(['restore', '--from', archive, '--data-dir', restoredInto]);
     expect(restore.code).toBe(0);
-    expect(restore.stdout).toMatch(/^Restored 20 files \(3 sources, 3 plans, 13 runs\)/);
+    expect(restore.stdout).toMatch(/^Restored 33 files \(3 sources, 3 plans, 13 runs\)/);
     const runs = (await readdir(path.join(data, 'runs'))).sort();
     expect((await readdir(path.join(restoredInto, 'runs'))).sort()).toEqual(runs);
     for (const name of runs) expect(await readFile(path.join(restoredInto, 'runs', name))).toEqual(await readFile(path.join(data, 'runs', name)));

@@ -16,6 +16,8 @@ export interface BenchCase<State = unknown> {
   /** Timed repetitions (default 21) after `warmup` untimed ones (default 5). */
   repeat?: number;
   warmup?: number;
+  /** Another case's name: its median is this case's floor, and the ratio of medians is printed as "ratioToFloor". */
+  relativeTo?: string;
 }
 
 /** Declares a case with its state type inferred from `setup`. */

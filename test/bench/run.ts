@@ -70,5 +70,12 @@ async function measure(benchCase: BenchCase): Promise<Record<string, unknown>> {
 
 const wanted = process.argv.slice(2);
 const cases = (await loadCases()).filter((benchCase) => wanted.length === 0 || wanted.includes(benchCase.name));
-for (const benchCase of cases) process.stdout.write(`${JSON.stringify(await measure(benchCase))}\n`);
+const medians = new Map<string, number>();
+for (const benchCase of cases) {
+  const measured = await measure(benchCase);
+  medians.set(benchCase.name, measured.medianMs as number);
+  const floor = benchCase.relativeTo === undefined ? undefined : medians.get(benchCase.relativeTo);
+  if (floor !== undefined) measured.ratioToFloor = round((measured.medianMs as number) / floor);
+  process.stdout.write(`${JSON.stringify(measured)}\n`);
+}
 if (sink === Symbol.for('never')) process.stdout.write('\n');

@@ -2,11 +2,11 @@ import { existsSync, readFileSync } from 'node:fs';
 import { readFile, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { fingerprintFromPdf, pdfText } from '../../src-main/record/fingerprintFromPdf.js';
+import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
 import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
 import { layout } from '../../src-main/store/index.js';
 import { decidedKestrelRun, incomingSpec, passes, recordWorkspace, sourceWithPlan, type RecordWorkspace } from '../record/fromRunFixtures.js';
-import { flatten } from '../record/pdfInspection.js';
+import { flatten, pdfText } from '../record/pdfInspection.js';
 import { runCli } from './runCli.js';
 
 describe('tallyline record, verify --pdf and export on a real data folder', () => {
@@ -38,7 +38,7 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
     const verified = await runCli(['verify', '--run', decidedId, '--pdf', out, '--json', ...dataFlags()]);
     expect(verified.code).toBe(0);
     const report = JSON.parse(verified.stdout);
-    expect(Object.keys(report)).toEqual(['ok', 'entries', 'fingerprint', 'problems', 'record']);
+    expect(Object.keys(report)).toEqual(['ok', 'entries', 'fingerprint', 'problems', 'anchor', 'record']);
     expect(report).toMatchObject({ ok: true, problems: [], record: { printed: report.fingerprint, metadata: [report.fingerprint, report.fingerprint], matches: true, differs: [] } });
   }, 60_000);
 
@@ -93,16 +93,17 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
   }, 60_000);
 
   it('fails verification against the printed record when the last line was edited, naming both copies of the fingerprint', async () => {
-    // The close entry is the last line: nothing after it carries its hash, so only the fingerprint shows the edit.
+    // The close entry is the last line: nothing after it carries its hash, so only the anchor and the fingerprint show the edit.
     const { printed, json, words } = await verifyAfterEdit((journal) => {
       const lines = journal.trimEnd().split('\n');
       lines[lines.length - 1] = lines[lines.length - 1].replace('"actor":"A. Brennan"', '"actor":"A. Brenan"');
       return `${lines.join('\n')}\n`;
     });
     expect(json.code).toBe(1);
-    expect(json.report).toMatchObject({ ok: false, problems: [], record: { printed, matches: false, differs: ['printed', 'metadata'] } });
+    expect(json.report).toMatchObject({ ok: false, anchor: { status: 'differs', fingerprint: printed }, record: { printed, matches: false, differs: ['printed', 'metadata'] } });
+    expect(json.report.problems).toEqual([expect.objectContaining({ seq: json.report.entries - 1, kind: 'tampered' })]);
     expect(json.report.fingerprint).not.toBe(printed);
-    expect(words.stdout).toContain('chain verifies');
+    expect(words.stdout).toMatch(/does not have the hash its anchor records/);
     expect(words.stdout).toContain('its fingerprint does NOT match the journal (printed and metadata differ)');
     expect(words.stdout).toContain(`printed:  ${printed}`);
     expect(words.stdout).toContain(`journal:  ${json.report.fingerprint}`);
@@ -138,7 +139,7 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
     [['record', '--out', 'x.pdf'], '--run is required'],
     [['record', '--run', 'run-1'], '--out is required'],
     [['record', '--run', 'run-1', '--out', 'record.txt'], '--out must be a file path ending in .pdf'],
-    [['record', '--run', '../../etc/passwd', '--out', 'x.pdf'], '--run: run id'],
+    [['record', '--run', '../../etc/passwd', '--out', 'x.pdf'], '--run must be a run id'],
     [['record', '--run', 'run-1', '--out', 'x.pdf', '--colour', 'red'], 'unknown flag --colour'],
     [['verify', '--run', 'run-1', '--pdf'], '--pdf needs a value'],
     [['export', '--run', 'run-1'], '--out is required'],
@@ -152,6 +153,6 @@ describe('tallyline record, verify --pdf and export on a real data folder', () =
   it('exits 1 with one line for a run that does not exist', async () => {
     const result = await runCli(['record', '--run', 'run-20250101-00000000', '--out', path.join(space.data, 'none.pdf'), ...dataFlags()]);
     expect(result.code).toBe(1);
-    expect(result.stderr).toBe('tallyline record: there is no run run-20250101-00000000 in this data folder\n');
+    expect(result.stderr).toBe(`tallyline record: there is no run run-20250101-00000000 in the data folder ${space.data}\n`);
   }, 30_000);
 });

@@ -24,7 +24,7 @@ function capture(): { io: CliIo; out: () => string; err: () => string } {
   let out = '';
   let err = '';
   return {
-    io: { stdout: (text) => void (out += text), stderr: (text) => void (err += text), readText: () => Promise.reject(new Error('not used')) },
+    io: { stdout: (text) => void (out += text), stderr: (text) => void (err += text), readText: () => Promise.reject(new Error('not used')), inputLines: () => ({ lines: (async function* () {})(), close: () => undefined }) },
     out: () => out,
     err: () => err,
   };

@@ -10,6 +10,10 @@ const recorded = vi.hoisted(() => ({
   invokeChannels: [] as string[],
   loadedUrls: [] as string[],
   openedExternally: [] as string[],
+  appListeners: new Map<string, (...args: any[]) => void>(),
+  permissionRequestHandler: null as null | ((webContents: unknown, permission: string, callback: (granted: boolean) => void) => void),
+  permissionCheckHandler: null as null | ((...args: unknown[]) => boolean),
+  quitCalls: 0,
 }));
 
 vi.mock('electron', () => {
@@ -29,7 +33,19 @@ vi.mock('electron', () => {
     }
   }
   const electron = {
-    app: { requestSingleInstanceLock: () => true, on: () => undefined, whenReady: () => Promise.resolve(), quit: vi.fn(), exit: vi.fn() },
+    app: {
+      requestSingleInstanceLock: () => true,
+      on: (event: string, listener: (...args: any[]) => void) => recorded.appListeners.set(event, listener),
+      whenReady: () => Promise.resolve(),
+      quit: () => (recorded.quitCalls += 1),
+      exit: vi.fn(),
+    },
+    session: {
+      defaultSession: {
+        setPermissionRequestHandler: (handler: any) => (recorded.permissionRequestHandler = handler),
+        setPermissionCheckHandler: (handler: any) => (recorded.permissionCheckHandler = handler),
+      },
+    },
     BrowserWindow,
     ipcMain: { handle: (channel: string) => recorded.invokeChannels.push(channel), on: () => undefined },
     Menu: { setApplicationMenu: () => undefined, buildFromTemplate: (template: unknown) => template },
@@ -67,10 +83,54 @@ describe('the Electron shell', () => {
     expect(inside.preventDefault).not.toHaveBeenCalled();
   });
 
-  it('denies every new window', () => {
+  it('denies every new window and opens no address off the (empty) allow-list in the browser', () => {
     expect(recorded.windowOpenHandler!({ url: 'https://example.org/standard' })).toEqual({ action: 'deny' });
     expect(recorded.windowOpenHandler!({ url: 'tallyline://app/index.html' })).toEqual({ action: 'deny' });
-    expect(recorded.openedExternally).toEqual(['https://example.org/standard']);
+    expect(recorded.windowOpenHandler!({ url: 'file:///etc/passwd' })).toEqual({ action: 'deny' });
+    expect(recorded.openedExternally).toEqual([]);
+  });
+
+  it('blocks redirects and frame navigation away from the app', () => {
+    for (const eventName of ['will-redirect', 'will-frame-navigate']) {
+      const guard = recorded.webContentsListeners.get(eventName)!;
+      const away = { preventDefault: vi.fn() };
+      guard(away, 'https://attacker.example/');
+      expect(away.preventDefault).toHaveBeenCalled();
+      const inside = { preventDefault: vi.fn() };
+      guard(inside, 'tallyline://app/index.html');
+      expect(inside.preventDefault).not.toHaveBeenCalled();
+    }
+  });
+
+  it('denies every permission request and check', () => {
+    const answers: boolean[] = [];
+    for (const permission of ['media', 'geolocation', 'notifications', 'clipboard-read']) recorded.permissionRequestHandler!(null, permission, (granted) => answers.push(granted));
+    expect(answers).toEqual([false, false, false, false]);
+    expect(recorded.permissionCheckHandler!(null, 'media')).toBe(false);
+  });
+
+  it('quits when the last window closes on Linux and Windows', () => {
+    const before = recorded.quitCalls;
+    recorded.appListeners.get('window-all-closed')!();
+    expect(recorded.quitCalls).toBe(before + (process.platform === 'darwin' ? 0 : 1));
+  });
+
+  it('on quit, first closes the run journals and removes the private print folder, then quits', async () => {
+    const { existsSync } = await import('node:fs');
+    const printFolders = (await import('node:fs')).readdirSync((await import('node:os')).tmpdir()).filter((name) => name.startsWith('tallyline-records-'));
+    expect(printFolders.length).toBeGreaterThan(0);
+    const before = recorded.quitCalls;
+    const event = { preventDefault: vi.fn() };
+    recorded.appListeners.get('before-quit')!(event);
+    expect(event.preventDefault).toHaveBeenCalled();
+    await vi.waitFor(() => expect(recorded.quitCalls).toBe(before + 1));
+    const { join } = await import('node:path');
+    const { tmpdir } = await import('node:os');
+    expect(printFolders.some((name) => !existsSync(join(tmpdir(), name)))).toBe(true);
+    // The second before-quit (from that quit) goes through.
+    const second = { preventDefault: vi.fn() };
+    recorded.appListeners.get('before-quit')!(second);
+    expect(second.preventDefault).not.toHaveBeenCalled();
   });
 
   it('serves every channel of the contract on IPC', async () => {

@@ -1,4 +1,4 @@
-import { mkdtemp, readFile, rm } from 'node:fs/promises';
+import { mkdtemp, readFile, rm, stat, symlink, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -52,5 +52,17 @@ describe('opening a record PDF from the desktop window', () => {
     const answer = await call('tallyline://app/index.html', { fileName: 'a.pdf', base64: pdfBase64 });
     expect(answer).toMatchObject({ ok: false });
     expect((answer as { message: string }).message).toContain('No application is registered');
+  });
+
+  it('never follows a file planted under the same name: the record gets a new name, owner-only, and the planted target is untouched', async () => {
+    const { folder, opened, call } = await setUp();
+    const target = join(folder, 'elsewhere.txt');
+    await writeFile(target, 'keep me');
+    await symlink(target, join(folder, 'record-KF-1.pdf'));
+    const answer = await call('tallyline://app/index.html', { fileName: 'record-KF-1.pdf', base64: pdfBase64 });
+    expect(answer).toEqual({ ok: true, value: join(folder, 'record-KF-1-2.pdf') });
+    expect(opened).toEqual([join(folder, 'record-KF-1-2.pdf')]);
+    expect(await readFile(target, 'utf8')).toBe('keep me');
+    expect((await stat(join(folder, 'record-KF-1-2.pdf'))).mode & 0o777).toBe(0o600);
   });
 });

@@ -95,4 +95,22 @@ describe('the browser host', () => {
     expect((await call('/assets/missing.js')).status).toBe(404);
     expect((await call('/inspect')).body).toContain('<title>Tallyline</title>');
   });
+
+  it('answers a path with a malformed % escape with 400, not a server error', async () => {
+    const page = await call('/%E0%A4%A');
+    expect(page.status).toBe(400);
+    expect(page.body).toBe('The address has a malformed % escape.');
+    const channel = await call('/api/plan.limits%E0%A4%A', { method: 'POST', headers: authorized, body: nistExample });
+    expect(channel.status).toBe(400);
+    expect(JSON.parse(channel.body)).toMatchObject({ ok: false, code: 'invalid-payload' });
+  });
+
+  it('refuses a design whose work has no bound with one invalid-parameter line, and keeps answering', { timeout: 10_000 }, async () => {
+    // A truncation of 1e9 items used to take the host past 2 GB of memory.
+    const spec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1, truncation: 1e9 };
+    const refused = await call('/api/plan.design', { method: 'POST', headers: authorized, body: JSON.stringify({ spec }) });
+    expect(JSON.parse(refused.body)).toMatchObject({ ok: false, code: 'invalid-parameter', field: 'truncation' });
+    const next = await call('/api/plan.limits', { method: 'POST', headers: authorized, body: nistExample });
+    expect(JSON.parse(next.body)).toMatchObject({ ok: true });
+  });
 });

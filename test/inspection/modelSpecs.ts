@@ -20,7 +20,7 @@ export function measurementLlr(spec: MeasurementSpec, n: number, sum: number): n
   return ((spec.mu1 - spec.mu0) / spec.sigma ** 2) * (sum - (n * (spec.mu0 + spec.mu1)) / 2);
 }
 
-/** LLR of a life test: r ln(theta0/theta1) - T (1/theta1 - 1/theta0) (issue 8; Epstein and Sobel 1955, from memory). */
+/** LLR of a life test: r ln(theta0/theta1) - T (1/theta1 - 1/theta0) (Epstein and Sobel 1955, from memory). */
 export function lifetimeLlr(spec: LifetimeSpec, time: number, failures: number): number {
   return failures * Math.log(spec.theta0 / spec.theta1) - time * (1 / spec.theta1 - 1 / spec.theta0);
 }

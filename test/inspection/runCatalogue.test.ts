@@ -26,7 +26,7 @@ function value<T>(result: ChannelResult<unknown>): T {
 async function cli(name: string, command: Command, args: readonly string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   let stdout = '';
   let stderr = '';
-  const io: CliIo = { stdout: (text) => void (stdout += text), stderr: (text) => void (stderr += text), readText: () => Promise.reject(new Error('no input')) };
+  const io: CliIo = { stdout: (text) => void (stdout += text), stderr: (text) => void (stderr += text), readText: () => Promise.reject(new Error('no input')), inputLines: () => ({ lines: (async function* () {})(), close: () => undefined }) };
   const code = await runCommand(name, command, args, io);
   return { code, stdout, stderr };
 }
@@ -189,7 +189,7 @@ describe('a damaged journal among 20 good runs', () => {
       expect(verified.stdout).toContain('chain does NOT verify');
 
       let stderr = '';
-      const io: CliIo = { stdout: () => undefined, stderr: (line) => void (stderr += line), readText: () => Promise.reject(new Error('no input')) };
+      const io: CliIo = { stdout: () => undefined, stderr: (line) => void (stderr += line), readText: () => Promise.reject(new Error('no input')), inputLines: () => ({ lines: (async function* () {})(), close: () => undefined }) };
       const service = createRunService({ dataDirectory: data });
       try {
         const code = await feedLines(service, (async function* () { yield 'pass'; })(), { runId: damagedId, json: true }, io);
@@ -220,7 +220,7 @@ describe('a damaged journal among 20 good runs', () => {
       expect(recorded.stderr.split('\n')).toHaveLength(2);
 
       let stderr = '';
-      const io: CliIo = { stdout: () => undefined, stderr: (line) => void (stderr += line), readText: () => Promise.reject(new Error('no input')) };
+      const io: CliIo = { stdout: () => undefined, stderr: (line) => void (stderr += line), readText: () => Promise.reject(new Error('no input')), inputLines: () => ({ lines: (async function* () {})(), close: () => undefined }) };
       const service = createRunService({ dataDirectory: data });
       try {
         expect(await feedLines(service, (async function* () { yield 'pass'; })(), { runId: damagedId, json: true }, io)).toBe(1);

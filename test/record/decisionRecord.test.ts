@@ -4,10 +4,9 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { renderDecisionRecord, writeDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
 import { DecisionRecordInputError } from '../../src-main/record/recordInput.js';
-import { pdfText } from '../../src-main/record/fingerprintFromPdf.js';
 import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
 import { decidedDemoRun, DEMO_FINGERPRINT, longDemoRun, makeDemoRun } from './demoRun.js';
-import { flatten, isStruckThrough, pageGeometry, renderPageToPng } from './pdfInspection.js';
+import { flatten, isStruckThrough, pageGeometry, pdfText, renderPageToPng } from './pdfInspection.js';
 
 describe('the decision record of a decided run', () => {
   const input = decidedDemoRun();

@@ -27,6 +27,30 @@ export interface HorizontalSegment {
   y: number;
 }
 
+/**
+ * All text of a PDF, page after page, one line per text line, read by pdfjs-dist: a reader
+ * independent of the app's own (src-main/record/pdfText.ts), so tests of the record do not check
+ * the writer with a reader from the same hands.
+ */
+export async function pdfText(pdf: Uint8Array): Promise<string[]> {
+  const { document } = await openPdf(pdf);
+  try {
+    const pages: string[] = [];
+    for (let number = 1; number <= document.numPages; number++) {
+      const page = await document.getPage(number);
+      const content = await page.getTextContent();
+      let text = '';
+      for (const item of content.items) {
+        if ('str' in item) text += item.str + (item.hasEOL ? '\n' : '');
+      }
+      pages.push(text);
+    }
+    return pages;
+  } finally {
+    await document.destroy();
+  }
+}
+
 async function openPdf(pdf: Uint8Array) {
   const pdfjs = await import('pdfjs-dist/legacy/build/pdf.mjs');
   return { pdfjs, document: await pdfjs.getDocument({ data: new Uint8Array(pdf), isEvalSupported: false, verbosity: 0 }).promise };

@@ -30,14 +30,14 @@ describe('resolveDataDirectory', () => {
     expect(resolveDataDirectory({ ...base, env: { XDG_DATA_HOME: 'rel' } })).toBe('/home/quality/.local/share/Tallyline');
   });
 
-  it('uses Application Support on macOS', () => {
+  it("uses Application Support on macOS, beside Electron's own profile folder (Tallyline), not in it", () => {
     expect(resolveDataDirectory({ ...base, platform: 'darwin', home: '/Users/q' })).toBe(
-      '/Users/q/Library/Application Support/Tallyline',
+      '/Users/q/Library/Application Support/Tallyline Data',
     );
   });
 
-  it('uses %APPDATA% on Windows', () => {
+  it("uses %APPDATA% on Windows, beside Electron's own profile folder (Tallyline), not in it", () => {
     const found = resolveDataDirectory({ ...base, platform: 'win32', env: { APPDATA: 'C:\\Users\\q\\AppData\\Roaming' } });
-    expect(found).toBe('C:\\Users\\q\\AppData\\Roaming\\Tallyline');
+    expect(found).toBe('C:\\Users\\q\\AppData\\Roaming\\Tallyline Data');
   });
 });

@@ -28,7 +28,7 @@ describe('the run journal', () => {
       expect(JSON.parse(lines[index]).previous).toBe(lineHash(lines[index - 1]));
     }
     const report = await verifyJournal(journalPath);
-    expect(report).toEqual({ ok: true, entries: 6, fingerprint: lineHash(lines[5]), problems: [] });
+    expect(report).toEqual({ ok: true, entries: 6, fingerprint: lineHash(lines[5]), problems: [], anchor: { status: 'anchored', seq: 5, fingerprint: lineHash(lines[5]) } });
   });
 
   it('keeps concurrent appends in call order with consecutive sequence numbers', async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFile, rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import { JournalWriter, quarantinePathFor, verifyJournal } from '../../src-main/store/journal/index.js';
+import { JournalWriter, analyseJournal, quarantinePathFor, verifyJournal } from '../../src-main/store/journal/index.js';
 import { tempFolder, writeSampleJournal } from './helpers.js';
 
 describe('a torn final line in the run journal', () => {
@@ -35,13 +35,16 @@ describe('a torn final line in the run journal', () => {
     }
   });
 
-  it('is a clean journal when the cut falls exactly after a newline', async () => {
+  it('is a whole chain when the cut falls exactly after a newline, and the anchor names the entry dropped from the end', async () => {
     const folder = await tempFolder();
     const original = await writeSampleJournal(folder, 4);
     const bytes = await readFile(original);
     const lastStart = bytes.subarray(0, -1).lastIndexOf(0x0a) + 1;
     await writeFile(original, bytes.subarray(0, lastStart));
-    expect(await verifyJournal(original)).toMatchObject({ ok: true, entries: 4 });
+    expect(analyseJournal(await readFile(original)).problems).toEqual([]);
+    const report = await verifyJournal(original);
+    expect(report).toMatchObject({ ok: false, entries: 4, anchor: { status: 'behind', seq: 4 } });
+    expect(report.problems).toEqual([expect.objectContaining({ seq: 4, line: 5, kind: 'tampered', problem: expect.stringMatching(/ends at seq 3 but its anchor records seq 4: 1 entry was removed from the end/) })]);
   });
 
   it('includes a complete last line of zeros, as a power cut can leave, and keeps appending after it', async () => {

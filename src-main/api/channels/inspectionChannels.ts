@@ -13,7 +13,7 @@
  *   lifetime: `model: 'lifetime', time, failures` (n = counted entries, total = failures);
  *   graded: `model: 'graded', counts, demerits` (total = demerits).
  *
- * `live` (InspectionLive): the engine's `liveState` (passfail/count, no `model`), or
+ * `live` (InspectionLive): the engine's `linearCountLiveState` (passfail/count, no `model`), or
  *   `{ model, ...measurementLiveState | lifetimeLiveState | gradedLiveState }`.
  *
  * `frame` (InspectionFrame): what the evidence chart draws the run against; `horizon`, `limits`,
@@ -29,6 +29,8 @@
  * `time` (the point is failures = total vs time).
  */
 import { z } from 'zod';
+import { idSchema } from '../../store/ids.js';
+import { shortText } from '../../store/textFields.js';
 import {
   itemResultSchema,
   type InspectionEntry,
@@ -42,20 +44,20 @@ import {
 export type { EvidenceFrame, GradedFrame, InspectionEntry, InspectionFrame, InspectionLive, LifetimeFrame, MeasurementFrame } from '../../inspection/index.js';
 
 /** Run ids become file names: the same characters the store allows. */
-const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
+const runId = idSchema('run');
 const optionalText = (limit: number) => z.string().max(limit).nullable().optional();
 /** Who made an entry; the run's inspector when left out. */
-const actor = z.string().trim().min(1).max(120).optional();
+const actor = shortText('The name of who made the entry').optional();
 
 /** Channels of the Inspect place. Sources and plan versions for the start form come from the plan channels. */
 export const inspectionChannels = {
   /** Starts a run of one plan version on one lot of a source. */
   'inspection.start': {
     input: z.object({
-      planId: z.string().min(1).max(80),
+      planId: idSchema('plan'),
       planVersion: z.number().int().positive().optional(),
-      sourceId: z.string().min(1, 'Choose the source of the lot.').max(80),
-      lot: z.string().trim().min(1, 'A run needs a lot or batch id.').max(120),
+      sourceId: z.string().min(1, 'Choose the source of the lot.').pipe(idSchema('source')),
+      lot: shortText('A lot or batch id', 'A run needs a lot or batch id.'),
       lotSize: z.number().int('The lot size is a whole number of items.').positive('The lot size is at least 1 item.').nullable().optional(),
       inspector: optionalText(120),
       note: optionalText(2000),

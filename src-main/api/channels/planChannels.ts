@@ -1,5 +1,7 @@
 import { z } from 'zod';
-import type { AnyPlanDesign, AnyPlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
+import { idSchema } from '../../store/ids.js';
+import { shortText } from '../../store/textFields.js';
+import type { PlanDesign, PlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
 import { planSpecSchemas } from '../../store/planSpecSchema.js';
 import type { PlanVersion } from '../../store/plans.js';
 import type { SourceKind, SourcePart } from '../../store/sources.js';
@@ -13,7 +15,7 @@ export const linearPlanSpecSchema = channelSpecSchemas.linear;
 /** The plan parameters of every model as they cross a channel (IPC, HTTP). */
 export const planSpecSchema = channelSpecSchemas.any;
 
-const planId = z.string().min(1).max(80);
+const planId = idSchema('plan');
 const nothing = z.null().optional();
 
 /** Largest plan file the import accepts, in characters; real ones are under 1 kB. */
@@ -28,7 +30,7 @@ export const planChannels = {
    * plan, the table of acceptance/rejection numbers, the distribution of items inspected.
    * `suggestTruncation` truncates where the engine suggests (the spec's truncation is then ignored);
    * pass/fail and count only, the other models are designed as given.
-   * The answer's `design` is discriminated by `model`: PlanDesign (passfail, count), MeasurementDesign,
+   * The answer's `design` is discriminated by `model`: LinearCountDesign (passfail, count), MeasurementDesign,
    * LifetimeDesign or GradedDesign (engine/models/*-design.ts).
    * `stream` + `ticket`: a request superseded by a newer ticket of the same stream before its turn
    * answers `{ superseded: true }` without computing.
@@ -48,11 +50,11 @@ export const planChannels = {
   'plan.save': {
     input: z.object({
       id: planId.optional(),
-      name: z.string().trim().min(1, 'A plan needs a name.').max(120),
+      name: shortText('A plan name', 'A plan needs a name.'),
       source: z
         .union([
-          z.object({ id: z.string().min(1).max(80) }),
-          z.object({ name: z.string().trim().min(1, 'A source needs a name.').max(120), kind: z.enum(['supplier', 'line', 'machine']) }),
+          z.object({ id: idSchema('source') }),
+          z.object({ name: shortText('A source name', 'A source needs a name.'), kind: z.enum(['supplier', 'line', 'machine']) }),
         ])
         .nullable(),
       /** The source's part this plan checks, and its characteristic (a run's record prints both). */
@@ -73,12 +75,12 @@ export const planChannels = {
   'plan.import': { input: z.object({ text: z.string().max(maximumPlanFileLength, 'A plan file is at most 100 kB.') }) },
 } as const;
 
-/** What `designAnyPlan` computes, as it travels to the renderer: discriminated by `model`. */
-export type PlanDesign = AnyPlanDesign;
+/** What `designPlan` computes, as it travels to the renderer: discriminated by `model`. */
+export type LinearCountDesign = PlanDesign;
 
 export type DesignAnswer =
   | { superseded: true }
-  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: AnyPlanSpec; design: PlanDesign };
+  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: PlanSpec; design: LinearCountDesign };
 
 export interface SourceChoice {
   id: string;
@@ -102,5 +104,5 @@ export interface PlanChannelOutputs {
   'plan.versions': SavedPlan[];
   'plan.open': SavedPlan;
   'plan.export': { fileName: string; text: string };
-  'plan.import': { name: string; spec: AnyPlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
+  'plan.import': { name: string; spec: PlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
 }

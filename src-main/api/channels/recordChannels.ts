@@ -1,11 +1,12 @@
 import { z } from 'zod';
-import type { AnyPlanSpec } from '../../engine/index.js';
+import { idSchema } from '../../store/ids.js';
+import type { PlanSpec } from '../../engine/index.js';
 import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
 import { RUN_OUTCOMES, type RunOutcome, type RunRow } from '../../inspection/index.js';
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 
 /** Run ids become file names: the same characters the store allows. */
-const runId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A run id is letters, digits, ".", "_" or "-".');
+const runId = idSchema('run');
 const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.');
 
 /** Channels of the Records place: the run history, one run read-only, its record and its entries. */
@@ -14,7 +15,7 @@ export const recordChannels = {
   'record.history': {
     input: z
       .object({
-        sourceId: z.string().min(1).max(80).optional(),
+        sourceId: idSchema('source').optional(),
         from: day.optional(),
         to: day.optional(),
         outcome: z.enum(RUN_OUTCOMES as [RunOutcome, ...RunOutcome[]]).optional(),
@@ -36,7 +37,7 @@ export const recordChannels = {
 export interface RecordRunView {
   readonly row: RunRow;
   readonly recordId: string;
-  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: AnyPlanSpec };
+  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: PlanSpec };
   readonly lotSize: number | null;
   readonly inspectors: string[];
   readonly entries: InspectionEntry[];

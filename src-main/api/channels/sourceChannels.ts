@@ -1,13 +1,15 @@
 import { z } from 'zod';
+import { idSchema } from '../../store/ids.js';
+import { shortText } from '../../store/textFields.js';
 import type { SourceSummary } from '../../history/index.js';
 import type { RunRow } from '../../inspection/index.js';
 import type { Source } from '../../store/sources.js';
 
-const sourceId = z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,79}$/, 'A source id is letters, digits, ".", "_" or "-".');
-const sourceName = z.string().trim().min(1, 'A source needs a name.').max(120);
+const sourceId = idSchema('source');
+const sourceName = shortText('A source name', 'A source needs a name.');
 const kind = z.enum(['supplier', 'line', 'machine']);
 const part = z.object({
-  name: z.string().trim().min(1, 'A part needs a name.').max(120),
+  name: shortText('A part name', 'A part needs a name.'),
   characteristics: z.array(z.string().trim().min(1, 'A characteristic needs a name.').max(120)).max(100),
 });
 const parts = z

@@ -1,4 +1,4 @@
-import { createRunCatalogue, type RunCatalogue } from '../../inspection/index.js';
+import { createRunCatalogue, type RunCatalogue, type RunService } from '../../inspection/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
@@ -11,6 +11,8 @@ export interface HandlerContext {
   dataDirectory: string;
   /** The one reader of runs; every place lists and reads runs through it (made here when not given). */
   catalogue?: RunCatalogue;
+  /** The run service behind the inspection channels; one is made when not given. */
+  runService?: RunService;
 }
 
 /** Every channel's handler, for either adapter. */

@@ -1,4 +1,4 @@
-import type { AnyPlanSpec } from '../../engine/index.js';
+import type { PlanSpec } from '../../engine/index.js';
 import {
   ResultRefusedError,
   RunClosedError,
@@ -10,6 +10,7 @@ import {
   type RunCatalogue,
   resultProblem,
   type RecordOutcome,
+  type RunService,
   type RunView,
 } from '../../inspection/index.js';
 import { PlanRepository, SourceRepository } from '../../store/index.js';
@@ -26,17 +27,19 @@ type InspectionHandlers = Pick<
 export interface InspectionHandlerContext {
   dataDirectory: string;
   catalogue?: RunCatalogue;
+  /** The run service to use; the app passes its own so it can close the journals on quit. */
+  runService?: RunService;
 }
 
 /** What a handler needs to know of a run between requests: fixed at its start. */
 interface KnownRun {
-  readonly spec: AnyPlanSpec;
+  readonly spec: PlanSpec;
   readonly actor: string;
 }
 
 export function createInspectionHandlers(context: InspectionHandlerContext): InspectionHandlers {
   const catalogue = context.catalogue ?? createRunCatalogue(context.dataDirectory);
-  const service = createRunService({ dataDirectory: context.dataDirectory, catalogue });
+  const service = context.runService ?? createRunService({ dataDirectory: context.dataDirectory, catalogue });
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const known = new Map<string, KnownRun>();
@@ -55,7 +58,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
   }
 
   /** The answer to an append; the run's header is read again only when the append changed its status. */
-  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: AnyPlanSpec): Promise<InspectionStep> {
+  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: PlanSpec): Promise<InspectionStep> {
     const live = runLive(spec, outcome.state);
     const statusChanged = outcome.closedWith !== null || kind === 'override';
     const { status, decision, rule, closedAt } = statusChanged

@@ -1,4 +1,4 @@
-import type { AnyPlanSpec } from '../../engine/index.js';
+import type { PlanSpec } from '../../engine/index.js';
 import {
   RunJournalUnverifiedError,
   RunNotFoundError,
@@ -104,6 +104,6 @@ function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }>
 }
 
 /** The evidence path and the frame it is drawn in: the run's pictures, as the Inspect place draws them. */
-function recordEvidence(read: IntactRunRead, spec: AnyPlanSpec): { entries: InspectionEntry[]; frame: InspectionFrame } {
+function recordEvidence(read: IntactRunRead, spec: PlanSpec): { entries: InspectionEntry[]; frame: InspectionFrame } {
   return { entries: withStatistics(spec, read.replay.results), frame: evidenceFrame(spec, runLive(spec, read.replay.evidence.state())) };
 }

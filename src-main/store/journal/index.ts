@@ -4,4 +4,5 @@ export * from './verify.js';
 export * from './writer.js';
 export * from './errors.js';
 export { quarantinePathFor, type QuarantineRecord } from './quarantine.js';
-export { isAlive as processIsAlive } from './lock.js';
+export { liveLockOwner, lockPathFor, type LockOwner } from './lock.js';
+export * from './anchor.js';

@@ -1,15 +1,18 @@
 /**
  * The only way entries get into a run journal.
  *
- * Method: one long-lived handle per journal; appends are queued one after another; each writes
- * every byte of its line at the tracked end of the file, then fsyncs, and only then resolves.
- * A failed write poisons the writer: the file may hold a partial line, which the next open cuts
- * off into quarantine.
+ * Method: one long-lived handle per journal, opened for appending (O_APPEND), under the run's lock;
+ * appends are queued one after another. Each checks that the file is still the size this writer
+ * left it, writes every byte of its line, checks the size again (so any other writer shows up as
+ * an error, never as an entry silently overwritten), fsyncs, records the new seq and hash in the run's
+ * anchor (anchor.ts), and only then resolves. A failed or refused write poisons the writer:
+ * the file may hold a partial line, which the next open cuts off into quarantine.
  */
-import { mkdir, open, readFile, type FileHandle } from 'node:fs/promises';
+import { constants, mkdir, open, readFile, type FileHandle } from 'node:fs/promises';
 import path from 'node:path';
 import { analyseJournal } from './analyse.js';
-import { JournalTamperedError } from './errors.js';
+import { AnchorWriter, checkAnchor, readAnchorBytes } from './anchor.js';
+import { JournalChangedError, JournalTamperedError } from './errors.js';
 import {
   GENESIS_HASH,
   JOURNAL_FORMAT,
@@ -22,6 +25,9 @@ import {
 import { acquireJournalLock, type JournalLock } from './lock.js';
 import { appendToQuarantine, type QuarantineRecord } from './quarantine.js';
 import { syncFolder } from '../atomicWrite.js';
+import { withAnchor } from './verify.js';
+
+const APPEND = constants.O_RDWR | constants.O_APPEND;
 
 export type Clock = () => Date;
 
@@ -41,6 +47,7 @@ export class JournalWriter {
   private constructor(
     readonly journalPath: string,
     private readonly handle: FileHandle,
+    private anchor: AnchorWriter | null,
     private readonly lock: JournalLock,
     private readonly clock: Clock,
     private size: number,
@@ -59,13 +66,13 @@ export class JournalWriter {
     const lock = await acquireJournalLock(journalPath);
     let handle: FileHandle;
     try {
-      handle = await open(journalPath, 'wx+');
+      handle = await open(journalPath, APPEND | constants.O_CREAT | constants.O_EXCL, 0o644);
     } catch (error) {
       await lock.release();
       throw error;
     }
     await syncFolder(path.dirname(journalPath));
-    const writer = new JournalWriter(journalPath, handle, lock, clock, 0, 0, GENESIS_HASH);
+    const writer = new JournalWriter(journalPath, handle, null, lock, clock, 0, 0, GENESIS_HASH);
     const first = await writer.append('open', actor, { format: JOURNAL_FORMAT, ...header });
     return { writer, entries: [first], recovered: null };
   }
@@ -74,10 +81,14 @@ export class JournalWriter {
   static async open(journalPath: string, clock: Clock = () => new Date()): Promise<OpenedJournal> {
     const lock = await acquireJournalLock(journalPath);
     try {
-      const analysis = analyseJournal(await readFile(journalPath));
+      // Under the lock nobody appends, so one read of each file is enough.
+      const anchorFile = await readAnchorBytes(journalPath);
+      const journal = analyseJournal(await readFile(journalPath));
+      const anchor = checkAnchor(journal, anchorFile);
+      const analysis = withAnchor(journal, anchor);
       const tampered = analysis.problems.filter((problem) => problem.kind === 'tampered');
       if (tampered.length > 0) throw new JournalTamperedError(journalPath, tampered[0].seq, tampered);
-      const handle = await open(journalPath, 'r+');
+      const handle = await open(journalPath, APPEND);
       let recovered: OpenedJournal['recovered'] = null;
       let size = (await handle.stat()).size;
       if (analysis.tornTail !== null) {
@@ -87,9 +98,16 @@ export class JournalWriter {
         size = analysis.tornTail.fromByte;
         recovered = { quarantinePath: moved.path, record: moved.record };
       }
+      // A crash between the journal's fsync and its anchor, or a journal from before anchors: anchor what verified.
+      const anchorWriter = await AnchorWriter.open(
+        journalPath,
+        analysis.fingerprint === null ? null : { seq: analysis.entries.length - 1, fingerprint: analysis.fingerprint },
+        anchor.status !== 'anchored',
+      );
       const writer = new JournalWriter(
         journalPath,
         handle,
+        anchorWriter,
         lock,
         clock,
         size,
@@ -126,6 +144,7 @@ export class JournalWriter {
     await this.queue;
     this.closed = true;
     await this.handle.close();
+    await this.anchor?.close();
     await this.lock.release();
   }
 
@@ -144,20 +163,32 @@ export class JournalWriter {
     };
     const line = entryLine(entry);
     const bytes = Buffer.from(line + '\n', 'utf8');
+    const hash = lineHash(line);
     try {
+      await this.expectSize(this.size);
       let written = 0;
       while (written < bytes.length) {
-        const { bytesWritten } = await this.handle.write(bytes, written, bytes.length - written, this.size + written);
+        // O_APPEND: every write lands at the end of the file, whatever another writer did.
+        const { bytesWritten } = await this.handle.write(bytes, written, bytes.length - written, null);
         written += bytesWritten;
       }
+      await this.expectSize(this.size + bytes.length);
       await this.handle.sync();
+      const anchor = { seq: entry.seq, fingerprint: hash };
+      if (this.anchor === null) this.anchor = await AnchorWriter.open(this.journalPath, anchor, true);
+      else await this.anchor.write(anchor);
     } catch (error) {
       this.failure = error;
       throw error;
     }
     this.size += bytes.length;
     this.seq += 1;
-    this.lastHash = lineHash(line);
+    this.lastHash = hash;
     return entry;
+  }
+
+  private async expectSize(expected: number): Promise<void> {
+    const { size } = await this.handle.stat();
+    if (size !== expected) throw new JournalChangedError(this.journalPath, expected, size);
   }
 }

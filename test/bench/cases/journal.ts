@@ -4,9 +4,10 @@
  *   fsync'd), median and p99;
  * - journal-reload-10k: read a 10,000-result journal, verify its chain, replay it, recompute the state.
  */
+import { createHash } from 'node:crypto';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import type { PlanSpec } from '../../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../../src-main/engine/index.js';
 import { RunReplay } from '../../../src-main/inspection/index.js';
 import { JournalWriter, analyseJournal } from '../../../src-main/store/index.js';
 import { benchCase } from '../benchCase.js';
@@ -15,7 +16,7 @@ import { benchFolder, benchJournalText } from '../benchJournal.js';
 const RELOAD_RESULTS = 10_000;
 
 /** Wald plan whose acceptance and rejection lines a result pattern near the midline never leaves. */
-const reloadSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05, truncation: null, fit: 'wald' };
+const reloadSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05, truncation: null, fit: 'wald' };
 // Wald's midline slope s = ln((1-p0)/(1-p1)) / (ln(p1/p0) + ln((1-p0)/(1-p1))) for this plan.
 const MIDLINE_SLOPE = Math.log(0.99 / 0.9) / (Math.log(10) + Math.log(0.99 / 0.9));
 
@@ -49,7 +50,31 @@ export const cases = [
     repeat: 501,
   }),
   benchCase({
+    name: 'journal-reload-floor-10k',
+    description: 'the least any verifying reload of the same 10,000-result run must do: read, split into lines, one SHA-256 and one JSON.parse per line',
+    setup: () => {
+      const journalPath = path.join(benchFolder(), 'run-floor.journal');
+      writeLongRun(journalPath, 'run-floor');
+      return journalPath;
+    },
+    run: (journalPath) => {
+      const lines = readFileSync(journalPath, 'utf8').split('\n');
+      let last = '';
+      let parsed = 0;
+      for (const line of lines) {
+        if (line === '') continue;
+        last = createHash('sha256').update(line).digest('hex');
+        if (JSON.parse(line) !== null) parsed += 1;
+      }
+      if (parsed !== RELOAD_RESULTS + 1) throw new Error('the floor journal has the wrong number of lines');
+      return last;
+    },
+    repeat: 9,
+    warmup: 2,
+  }),
+  benchCase({
     name: 'journal-reload-10k',
+    relativeTo: 'journal-reload-floor-10k',
     description: 'reload a 10,000-result run: read the journal, verify the hash chain, replay the entries, recompute the state',
     setup: () => {
       const folder = benchFolder();
