@@ -68,7 +68,7 @@ export const command: Command = {
       const anchor = read.anchor ?? { status: 'missing' as const, anchor: null };
       report = {
         ok: read.problems.length === 0 && anchorHolds(anchor.status),
-        entries: read.entries.length,
+        entries: read.entriesRead,
         fingerprint: read.fingerprint,
         problems: [...read.problems],
         anchor: { status: anchor.status, ...(anchor.anchor ?? {}) },

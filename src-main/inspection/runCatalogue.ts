@@ -76,6 +76,8 @@ export interface RunRead {
   readonly runId: string;
   /** The good prefix of the journal: every entry before the first bad one (all of them when intact). */
   readonly entries: readonly JournalEntry[];
+  /** Entries read from intact lines in the whole journal, the good prefix and any after it (what verify counts). */
+  readonly entriesRead: number;
   /** SHA-256 of the journal's last intact line, null for an empty file. */
   readonly fingerprint: string | null;
   /** What is wrong with the journal: chain problems, a torn tail, the anchor's problem, and an entry that does not replay. */
@@ -201,7 +203,7 @@ export function readRunBytes(runId: string, bytes: Buffer, anchorFile?: Buffer |
 
   const firstTampered = problems.filter((problem) => problem.kind === 'tampered').sort((a, b) => a.seq - b.seq)[0];
   const damage: RunDamage | null = firstTampered === undefined ? null : { firstBadSeq: firstTampered.seq, problem: firstTampered.problem };
-  return { runId, entries, fingerprint: analysis.fingerprint, problems, anchor, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
+  return { runId, entries, entriesRead: analysis.entries.length, fingerprint: analysis.fingerprint, problems, anchor, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
 }
 
 function decisionEvent(entry: JournalEntry, replay: RunReplay): DecisionEvent | null {
