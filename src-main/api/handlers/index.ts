@@ -1,4 +1,4 @@
-import type { RunService } from '../../inspection/index.js';
+import { createRunCatalogue, type RunCatalogue, type RunService } from '../../inspection/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
@@ -9,12 +9,15 @@ import { createSettingsHandlers } from './settingsHandlers.js';
 /** Where the handlers keep and find data; one per app instance. */
 export interface HandlerContext {
   dataDirectory: string;
+  /** The one reader of runs; every place lists and reads runs through it (made here when not given). */
+  catalogue?: RunCatalogue;
   /** The run service behind the inspection channels; one is made when not given. */
   runService?: RunService;
 }
 
 /** Every channel's handler, for either adapter. */
-export function createHandlers(context: HandlerContext): ChannelHandlers {
+export function createHandlers(given: HandlerContext): ChannelHandlers {
+  const context = { ...given, catalogue: given.catalogue ?? createRunCatalogue(given.dataDirectory) };
   return {
     ...createPlanHandlers(context),
     ...createInspectionHandlers(context),
