@@ -1,5 +1,5 @@
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
-import { request } from 'node:http';
+import { Agent, request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -137,5 +137,30 @@ describe('the browser host', () => {
     expect(JSON.parse(settings.body)).toMatchObject({ ok: true });
     expect(JSON.parse((await design).body)).toMatchObject({ ok: true, value: { superseded: false, design: { model: 'graded' } } });
     expect(order).toEqual(['settings.get', 'plan.design']);
+  });
+
+  it('keeps an idle connection open longer than the 5 s that made requests fail to fetch', { timeout: 20_000 }, async () => {
+    const agent = new Agent({ keepAlive: true, maxSockets: 1 });
+    const post = () =>
+      new Promise<{ status: number; socket: unknown }>((resolve, reject) => {
+        const outgoing = request(
+          { host: '127.0.0.1', port: host.port, path: '/api/plan.limits', method: 'POST', agent, headers: { host: `127.0.0.1:${host.port}`, ...authorized } },
+          (response) => {
+            response.resume();
+            response.on('end', () => resolve({ status: response.statusCode ?? 0, socket: outgoing.socket }));
+          },
+        );
+        outgoing.on('error', reject);
+        outgoing.end(nistExample);
+      });
+    try {
+      const first = await post();
+      await new Promise((resolve) => setTimeout(resolve, 6_000));
+      const second = await post();
+      expect([first.status, second.status]).toEqual([200, 200]);
+      expect(second.socket).toBe(first.socket);
+    } finally {
+      agent.destroy();
+    }
   });
 });
