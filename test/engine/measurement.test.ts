@@ -12,7 +12,7 @@ import {
 import type { MeasurementSpec } from '../../src-main/engine/index.js';
 import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normalDistribution.js';
 import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
-import { waldOperatingPoint } from '../../src-main/engine/numerics/waldExponent.js';
+import { waldOperatingPoint } from '../../src-main/engine/waldCurve.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { normal: { cdf(x: number, mean: number, sd: number): number } };
