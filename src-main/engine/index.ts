@@ -12,7 +12,7 @@ export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, 
 
 // The one contract and its registry.
 export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision } from './models/sequentialModel.js';
-export { modelNames, modelLabels, planOf, checkPlanSpec, designPlan } from './models/registry.js';
+export { modelNames, modelLabels, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
 export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, LimitRowOf, Observation, Evidence } from './models/registry.js';
 export type { LookAhead } from './lookAhead.js';
 

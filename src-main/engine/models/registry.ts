@@ -3,7 +3,7 @@
  * through `planOf` (a checked spec bound to its model) or `designPlan`, never by its name.
  */
 import { PlanParameterError } from '../errors.js';
-import { checkCurvePoints, checkPlanWork } from '../planWork.js';
+import { checkCurvePoints, checkPlanWork, type PlanWorkEstimate } from '../planWork.js';
 import type { ModelName, PlanSpec } from '../spec.js';
 import { countModel } from './count/countModel.js';
 import { gradedModel } from './graded/gradedModel.js';
@@ -117,8 +117,16 @@ export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> 
  * @throws PlanParameterError naming the parameter, its value and what is allowed.
  */
 export function checkPlanSpec(spec: PlanSpec, options: DesignOptions = {}): void {
-  const curvePoints = checkCurvePoints(options.curvePoints ?? 51);
-  checkPlanWork(spec, modelOf(spec).estimateWork(spec, curvePoints));
+  checkPlanWork(spec, estimatePlanWork(spec, options.curvePoints ?? 51));
+}
+
+/**
+ * The size of a spec's runs and of its design with `curvePoints` qualities, as its model estimates it.
+ *
+ * @throws PlanParameterError for a spec its model refuses or a bad curvePoints.
+ */
+export function estimatePlanWork(spec: PlanSpec, curvePoints = 51): PlanWorkEstimate {
+  return modelOf(spec).estimateWork(spec, checkCurvePoints(curvePoints));
 }
 
 /**
