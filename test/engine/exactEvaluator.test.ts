@@ -106,10 +106,12 @@ describe('exact recursion against enumeration of all 2^n pass/fail sequences', (
           const lines = linesOf({ model: 'passfail', p0, p1, alpha, beta }, truncation);
           const expected = enumerateBernoulli(lines, p);
           const actual = createExactEvaluator(lines, 'bernoulli').evaluate(p);
-          expect(actual.accept).toBeCloseTo(expected.accept, 12);
-          expect(actual.reject).toBeCloseTo(expected.reject, 12);
-          expect(actual.asn).toBeCloseTo(expected.asn, 11);
-          expect(actual.undecided).toBeLessThan(1e-12); // early stop once the undecided mass is below 1e-12
+          // The recursion may stop early with up to 1e-12 undecided; the exact values lie within that remainder.
+          expect(actual.undecided).toBeLessThan(1e-12);
+          const slack = actual.undecided + 5e-13;
+          expect(Math.abs(actual.accept - expected.accept)).toBeLessThan(slack);
+          expect(Math.abs(actual.reject - expected.reject)).toBeLessThan(slack);
+          expect(Math.abs(actual.asn - expected.asn)).toBeLessThan(truncation * slack + 5e-12);
         },
       ),
       { numRuns: 150 },
