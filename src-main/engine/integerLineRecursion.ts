@@ -1,3 +1,4 @@
+import { fillPoissonPmf } from './distributions/poisson.js';
 import { rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
 import type { IntegerLines } from './integerLines.js';
 import type { CountStep } from './models/linearCountDefinition.js';
@@ -168,15 +169,11 @@ export function createLineRecursion(lines: IntegerLines, countStep: CountStep, o
       stepPmf = new Float64Array(length);
       stepTail = new Float64Array(length);
     }
-    let logPmf = -rate;
-    const logRate = Math.log(rate);
+    fillPoissonPmf(rate, stepPmf);
     let cumulative = 0;
     for (let k = 0; k < stepPmf.length; k++) {
-      const pmf = rate === 0 ? (k === 0 ? 1 : 0) : Math.exp(logPmf);
-      stepPmf[k] = pmf;
       stepTail[k] = Math.max(0, 1 - cumulative); // P(step >= k)
-      cumulative += pmf;
-      logPmf += logRate - Math.log(k + 1);
+      cumulative += stepPmf[k];
     }
   }
 

@@ -10,7 +10,7 @@ import {
   SIEGMUND_RHO,
 } from '../../src-main/engine/index.js';
 import type { MeasurementSpec } from '../../src-main/engine/index.js';
-import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normalDistribution.js';
+import { normalCdf, normalQuantile } from '../../src-main/engine/distributions/normal.js';
 import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
 import { waldOperatingPoint } from '../../src-main/engine/waldCurve.js';
 
