@@ -11,6 +11,7 @@ import {
 } from '../../src-main/engine/index.js';
 import type { LifetimeSpec } from '../../src-main/engine/index.js';
 import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
+import { fixedDurationPlans } from '../reference/referenceValues.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { poisson: { cdf(k: number, mean: number): number } };
@@ -127,14 +128,8 @@ describe('lifetime model (exponential MTBF)', () => {
   });
 
   it('reproduces the recomputed true risks of the MIL-HDBK-781A fixed-duration plans (MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF): table (from memory), risks)', () => {
-    // plan, d, T (theta1), accept <= c, alpha' %, beta' %.
-    const plans: Array<[string, number, number, number, number, number]> = [
-      ['IX-D', 1.5, 45.0, 36, 11.96, 9.94],
-      ['XII-D', 2.0, 18.8, 13, 9.58, 10.62],
-      ['XV-D', 3.0, 9.3, 5, 9.43, 9.86],
-      ['XXI-D', 3.0, 1.1, 0, 30.7, 33.29],
-    ];
-    for (const [, d, time, c, alpha, beta] of plans) {
+    // plan, d, T (theta1), accept <= c, alpha' %, beta' %: risks computed with fixedDurationRisksOf (jStat.poisson.cdf, test/reference).
+    for (const [, d, time, c, alpha, beta] of fixedDurationPlans) {
       const risks = fixedDurationRisks(d, 1, time, c);
       expect(100 * risks.alpha).toBeCloseTo(alpha, 1);
       expect(100 * risks.beta).toBeCloseTo(beta, 1);
