@@ -15,6 +15,7 @@ import { fileURLToPath } from 'node:url';
 // jstat ships no types; the calls used here.
 const jStat = jStatModule as unknown as {
   binomial: { cdf(k: number, n: number, p: number): number };
+  normal: { inv(p: number, mean: number, sd: number): number };
   poisson: { pdf(k: number, rate: number): number; cdf(k: number, rate: number): number };
 };
 
@@ -173,6 +174,41 @@ export function fixedDurationRisksOf(discrimination: number, time: number, accep
     alpha: 1 - jStat.poisson.cdf(acceptFailures, time / discrimination),
     beta: jStat.poisson.cdf(acceptFailures, time),
   };
+}
+
+/**
+ * A lifetime plan (exponential MTBF, discrimination d = theta0/theta1, time in units of theta1) as the
+ * count plan of its Poisson failure process per unit time: failure rate 1/d under H0 and 1 under H1,
+ * so LLR = r ln d - T (1 - 1/d) (Epstein, B. and Sobel, M. (1955), from memory).
+ */
+export function lifetimeAsCountSpec(discrimination: number, risk: number): ReferenceSpec {
+  return { model: 'count', lambda0: 1 / discrimination, lambda1: 1, alpha: risk, beta: risk };
+}
+
+/**
+ * Lifetime lines: accept time at 0 failures h1/s, time per failure 1/s, and the fewest failures that
+ * reject at a positive time (r ln d > ln A, i.e. r > h2): floor(h2) + 1.
+ */
+export function lifetimeLinesOf(discrimination: number, risk: number): { acceptAtZero: number; timePerFailure: number; firstReject: number } {
+  const { h1, h2, slope } = referenceLines(lifetimeAsCountSpec(discrimination, risk));
+  return { acceptAtZero: h1 / slope, timePerFailure: 1 / slope, firstReject: Math.floor(h2) + 1 };
+}
+
+/** Wald's expected test time (units of theta1) at MTBF theta0 (atH1 false) or theta1, by waldOcAsn on the failure process. */
+export function lifetimeWaldTime(discrimination: number, risk: number, atH1: boolean): number {
+  return waldOcAsn(lifetimeAsCountSpec(discrimination, risk), atH1 ? 1 : 1 / discrimination).asn;
+}
+
+/** Fixed-sample size of a one-sided normal test: ((z_(1-alpha) + z_(1-beta))/delta)^2, quantiles by jStat.normal.inv. */
+export function normalFixedSampleSize(alpha: number, beta: number, delta: number): number {
+  return ((jStat.normal.inv(1 - alpha, 0, 1) + jStat.normal.inv(1 - beta, 0, 1)) / delta) ** 2;
+}
+
+/** Wald's ASN at mu0 of the normal SPRT (shift delta sigma): ((1 - alpha) ln B + alpha ln A)/(-delta^2/2) (Wald 1947 §3.3, from memory). */
+export function normalWaldAsnH0(alpha: number, beta: number, delta: number): number {
+  const lnA = Math.log((1 - beta) / alpha);
+  const lnB = Math.log(beta / (1 - alpha));
+  return ((1 - alpha) * lnB + alpha * lnA) / (-0.5 * delta * delta);
 }
 
 /** P(X <= k) for X ~ Binomial(n, p), by jStat.binomial.cdf. */

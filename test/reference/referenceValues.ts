@@ -7,7 +7,11 @@
 import {
   exactOcAsn,
   fixedDurationRisksOf,
+  lifetimeLinesOf,
+  lifetimeWaldTime,
   neutralQualityOf,
+  normalFixedSampleSize,
+  normalWaldAsnH0,
   waldAsnAllFailing,
   waldOcAsn,
 } from './generateReferenceValues.js';
@@ -101,6 +105,37 @@ export const fixedDurationPlans: ReadonlyArray<readonly [plan: string, discrimin
   ['XV-D', 3.0, 9.3, 5, 9.43, 9.86],
   ['XXI-D', 3.0, 1.1, 0, 30.7, 33.29],
 ];
+
+/** Lifetime lines in units of theta1 (d, alpha = beta, accept time at 0 failures, time per failure, first rejecting failure count), computed with lifetimeLinesOf. */
+export const lifetimeLines: ReadonlyArray<readonly [discrimination: number, risk: number, acceptAtZero: number, timePerFailure: number, firstReject: number]> = [
+  [1.5, 0.1, 6.5917, 1.2164, 6],
+  [2, 0.1, 4.3944, 1.3863, 4],
+  [3, 0.1, 3.2958, 1.6479, 3],
+  [2, 0.2, 2.7726, 1.3863, 3],
+];
+
+/**
+ * Lifetime plans (d, alpha = beta): exact P(accept) and E[T] at theta0 and theta1 (units of theta1)
+ * from a recursion over failures on a time grid with Richardson extrapolation, computed
+ * independently, stated tolerance +-2e-4 and +-0.02 (not re-derived here: the generator has no
+ * continuous-time recursion); Wald's E[T] columns computed with lifetimeWaldTime.
+ */
+export const lifetimeExactAndWald: ReadonlyArray<
+  readonly [discrimination: number, risk: number, oc0: number, time0: number, waldTime0: number, oc1: number, time1: number, waldTime1: number]
+> = [
+  [2, 0.1, 0.9207, 11.94, 11.457, 0.1023, 10.18, 9.101],
+  [1.5, 0.1, 0.9128, 28.6, 27.891, 0.1014, 26.02, 24.369],
+  [3, 0.1, 0.9313, 6.23, 5.85, 0.1035, 4.875, 4.069],
+  [2, 0.2, 0.8439, 5.99, 5.421, 0.211, 5.16, 4.306],
+];
+
+/** Normal fixed-sample n (alpha, beta, shift in sigmas, n), computed with normalFixedSampleSize (jStat.normal.inv). */
+export const normalFixedSample: ReadonlyArray<readonly [alpha: number, beta: number, delta: number, n: number]> = [
+  [0.05, 0.1, 1, 8.564],
+  [0.01, 0.01, 0.5, 86.59],
+];
+/** Wald's E_0(N) over the fixed-sample n at alpha = beta = 0.05, computed with normalWaldAsnH0 / normalFixedSampleSize. */
+export const normalWaldToFixedRatio = 0.4897;
 
 /** One held value and how to recompute it. */
 export interface ReferenceValue {
@@ -204,6 +239,29 @@ export const referenceSets: ReferenceSet[] = [
         value(`nist: ASN at p = ${p}`, asn, () => waldOcAsn(nistSpec, p).asn, 2),
       ]),
       ...countWaldAsn.map(([plan, rate, asn]) => value(`${plan} count plan: ASN at lambda = ${rate}`, asn, () => waldOcAsn(specs[plan], rate).asn, 3)),
+    ],
+  },
+  {
+    name: 'Lifetime plans: lines and Wald expected test time (units of theta1)',
+    source: 'computed with lifetimeLinesOf and lifetimeWaldTime (the failure process as a count plan per unit time)',
+    values: [
+      ...lifetimeLines.flatMap(([d, risk, acceptAtZero, timePerFailure, firstReject]) => [
+        value(`d = ${d}, risk ${risk}: accept time at 0 failures`, acceptAtZero, () => lifetimeLinesOf(d, risk).acceptAtZero),
+        value(`d = ${d}, risk ${risk}: time per failure`, timePerFailure, () => lifetimeLinesOf(d, risk).timePerFailure),
+        value(`d = ${d}, risk ${risk}: first rejecting failure count`, firstReject, () => lifetimeLinesOf(d, risk).firstReject),
+      ]),
+      ...lifetimeExactAndWald.flatMap(([d, risk, , , waldTime0, , , waldTime1]) => [
+        value(`d = ${d}, risk ${risk}: Wald E[T] at theta0`, waldTime0, () => lifetimeWaldTime(d, risk, false)),
+        value(`d = ${d}, risk ${risk}: Wald E[T] at theta1`, waldTime1, () => lifetimeWaldTime(d, risk, true)),
+      ]),
+    ],
+  },
+  {
+    name: 'Normal plans: fixed-sample n and Wald ratio',
+    source: 'computed with normalFixedSampleSize (jStat.normal.inv) and normalWaldAsnH0',
+    values: [
+      ...normalFixedSample.map(([alpha, beta, delta, n]) => value(`n for alpha ${alpha}, beta ${beta}, delta ${delta}`, n, () => normalFixedSampleSize(alpha, beta, delta))),
+      value('E_0(N)/n at alpha = beta = 0.05, delta 1', normalWaldToFixedRatio, () => normalWaldAsnH0(0.05, 0.05, 1) / normalFixedSampleSize(0.05, 0.05, 1)),
     ],
   },
   {
