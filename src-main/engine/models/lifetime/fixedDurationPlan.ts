@@ -27,8 +27,8 @@ export function fixedDurationRisks(theta0: number, theta1: number, time: number,
  * P(N <= c | theta0) >= 1 - alpha and P(N <= c | theta1) <= beta.
  *
  * Method: for c = 0, 1, ... the shortest time with P(N <= c | theta1) <= beta (bisection on the
- * Poisson mean, numerics/rootFinding, the CDF falls as the mean grows); the first c whose time also meets the producer's
- * point gives the shortest test (that time grows with c).
+ * Poisson mean by numerics/rootFinding; the CDF falls as the mean grows); the first c whose time
+ * also meets the producer's point gives the shortest test (that time grows with c).
  * References: Epstein, B. (1960), "Statistical life test acceptance procedures", Technometrics 2(4);
  * MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF), fixed-time demonstration factors (computed independently).
  */
