@@ -67,18 +67,20 @@ export function startWithStandIn(options: StandInOptions): StandInProcess {
     if (message.ok) waiting?.resolve(message.value);
     else waiting?.reject(new Error(message.message));
   });
-  const exited = new Promise<{ code: number | null; stdout: string; stderr: string; recording: StandInRecording | null }>((resolve) => {
-    child.on('exit', (code) => {
-      for (const waiting of pending.values()) waiting.reject(new Error(`the process ended (code ${code}); stderr: ${stderr}`));
-      let recording: StandInRecording | null = null;
-      try {
-        recording = JSON.parse(readFileSync(recordingFile, 'utf8'));
-      } catch {
-        recording = null;
-      }
-      // Output still in the pipes arrives before 'close'.
-      child.once('close', () => resolve({ code, stdout, stderr, recording }));
-    });
+  // Resolved on exit once both output pipes are drained ('close' is not used: it never fires once
+  // the parent has disconnected the IPC channel).
+  const drained = (stream: NodeJS.ReadableStream) => new Promise<void>((resolve) => stream.once('close', () => resolve()));
+  const outputDrained = Promise.all([drained(child.stdout!), drained(child.stderr!)]);
+  const exited = new Promise<number | null>((resolve) => child.once('exit', (code) => resolve(code))).then(async (code) => {
+    for (const waiting of pending.values()) waiting.reject(new Error(`the process ended (code ${code}); stderr: ${stderr}`));
+    await outputDrained;
+    let recording: StandInRecording | null = null;
+    try {
+      recording = JSON.parse(readFileSync(recordingFile, 'utf8'));
+    } catch {
+      recording = null;
+    }
+    return { code, stdout, stderr, recording };
   });
   const send = <T>(command: Record<string, unknown>) =>
     new Promise<T>((resolve, reject) => {
