@@ -4,7 +4,7 @@
  * (accumulated test time), `fail` (a failure now) or `fail T` (time reaches T, then a failure);
  * graded a class name or its 0-based index.
  */
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 import { gradeIndex, type ItemResult } from '../inspection/index.js';
 
 const PASS_FAIL_WORDS: Record<string, ItemResult> = { pass: 'pass', fail: 'fail', '0': 'pass', '1': 'fail' };
@@ -13,7 +13,7 @@ const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 export type FeedLine = { result: ItemResult } | { problem: string } | null;
 
 /** The result on one input line, null for a blank or # comment line, or a sentence saying what is wrong. */
-export function parseFeedLine(spec: AnyPlanSpec, line: string): FeedLine {
+export function parseFeedLine(spec: PlanSpec, line: string): FeedLine {
   const text = line.trim();
   if (text === '' || text.startsWith('#')) return null;
   const quoted = JSON.stringify(text);

@@ -1,8 +1,8 @@
 /**
- * The flags that describe a plan, shared by `plan`, `replay` and later `run start`:
+ * The flags that describe a plan, shared by `plan`, `replay` and `run start`:
  * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
  */
-import type { AnyPlanSpec, PlanSpec } from '../engine/index.js';
+import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
 import { UsageError, flag, rejectFlags, requireFlag } from './flags.js';
 import type { Flag } from './flags.js';
 
@@ -32,8 +32,8 @@ export const planFlagsUsage = [
  *
  * @throws UsageError for a missing flag or one that belongs to the other model.
  */
-export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
-  const model = requireFlag<PlanSpec['model']>(values, 'model', planFlags);
+function linearCountSpecFromFlags(values: Record<string, unknown>): LinearCountSpec {
+  const model = requireFlag<LinearCountSpec['model']>(values, 'model', planFlags);
   const alpha = requireFlag<number>(values, 'alpha', planFlags);
   const beta = requireFlag<number>(values, 'beta', planFlags);
   const common = {
@@ -60,7 +60,7 @@ export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
   };
 }
 
-// ---- Models with their own design path: measurement, lifetime, graded. ----
+// ---- Flags of the measurement, lifetime and graded models. ----
 
 const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -152,14 +152,14 @@ function unitOf(values: Record<string, unknown>): { unit?: string } {
  *
  * @throws UsageError for a missing flag or one that belongs to another model.
  */
-export function anyPlanSpecFromFlags(values: Record<string, unknown>): AnyPlanSpec {
-  const model = requireFlag<AnyPlanSpec['model']>(values, 'model', modelPlanFlags);
+export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
+  const model = requireFlag<PlanSpec['model']>(values, 'model', modelPlanFlags);
   if (model === 'passfail' || model === 'count') {
     rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes', 'unit'], `does not apply to --model ${model}`);
     for (const name of ['p0', 'p1']) {
       if (Array.isArray(values[name])) throw new UsageError(`--${name}`, 'a number in (0, 1)', `--${name} must be a number in (0, 1) for --model ${model} (got a list)`);
     }
-    return planSpecFromFlags(values);
+    return linearCountSpecFromFlags(values);
   }
   const own = new Set([...OWN_FLAGS[model], 'model', 'alpha', 'beta', 'points', 'json', 'results']);
   const foreign = Object.keys(values).filter((name) => values[name] !== undefined && !own.has(name));

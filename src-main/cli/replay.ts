@@ -1,12 +1,12 @@
 /**
  * `tallyline replay`: feeds recorded results through a plan, one a line, and stops at the decision.
  */
-import { decide, modelOf } from '../engine/index.js';
-import type { PlanSpec } from '../engine/index.js';
+import { countOf, decideLinearCount } from '../engine/index.js';
+import type { LinearCountSpec } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { replayExtended } from './replayModels.js';
 import { formatNumber, formatTable } from './table.js';
 
@@ -18,14 +18,14 @@ const PASS_FAIL_WORDS: Record<string, number> = { pass: 0, fail: 1, '0': 0, '1':
  * One result from a line of the results file: pass/fail or 0/1 for pass/fail items, a count of
  * nonconformities for count data; null for a blank or # comment line.
  */
-export function parseResult(spec: PlanSpec, line: string, lineNumber: number): number | null {
+export function parseResult(spec: LinearCountSpec, line: string, lineNumber: number): number | null {
   const text = line.trim();
   if (text === '' || text.startsWith('#')) return null;
   const value =
     spec.model === 'passfail'
       ? PASS_FAIL_WORDS[text.toLowerCase()]
       : /^\d+$/.test(text)
-        ? modelOf(spec).parseObservation(Number(text))
+        ? Number(text)
         : null;
   if (value === undefined || value === null) {
     const allowed = spec.model === 'passfail' ? 'pass, fail, 0 or 1' : 'a whole number of nonconformities >= 0';
@@ -53,7 +53,7 @@ export const command: Command = {
   ].join('\n'),
   async run(args, io) {
     const values = parseFlags(args, flags);
-    const anySpec = anyPlanSpecFromFlags(values);
+    const planSpec = planSpecFromFlags(values);
     const path = requireFlag<string>(values, 'results', flags);
     let text: string;
     try {
@@ -62,8 +62,8 @@ export const command: Command = {
       const reason = (error as NodeJS.ErrnoException).code ?? (error as Error).message;
       throw new UsageError('--results', 'a readable file', `--results: cannot read ${JSON.stringify(path)} (${reason})`);
     }
-    if (anySpec.model === 'measurement' || anySpec.model === 'lifetime' || anySpec.model === 'graded') {
-      const { summary, rows } = replayExtended(anySpec, text);
+    if (planSpec.model === 'measurement' || planSpec.model === 'lifetime' || planSpec.model === 'graded') {
+      const { summary, rows } = replayExtended(planSpec, text);
       if (values.json) io.stdout(`${JSON.stringify(summary)}\n`);
       else {
         const table = formatTable(['step', 'entry', 'evidence', 'LLR'], rows.map((row) => [row[0], row[1], row[2], formatNumber(Number(row[3]))]));
@@ -71,8 +71,8 @@ export const command: Command = {
       }
       return EXIT_OK;
     }
-    const spec: PlanSpec = anySpec;
-    let state = decide(spec, 0, 0);
+    const spec: LinearCountSpec = planSpec;
+    let state = decideLinearCount(spec, 0, 0);
     let n = 0;
     let total = 0;
     const steps: ReplayStep[] = [];
@@ -82,7 +82,7 @@ export const command: Command = {
       if (result === null) continue;
       n += 1;
       total += result;
-      state = decide(spec, n, total);
+      state = decideLinearCount(spec, n, total);
       steps.push({ n, result, total, llr: state.llr });
     }
     const summary = { decision: state.decision, n, total, llr: state.llr, rule: state.rule };
@@ -93,7 +93,7 @@ export const command: Command = {
         ['n', 'result', 'total', 'LLR'],
         steps.map((step) => [String(step.n), String(step.result), String(step.total), formatNumber(step.llr)]),
       );
-      io.stdout(`${table}\n\nDecision: ${summary.decision} after ${n} items, total ${total} (${summary.rule})\n`);
+      io.stdout(`${table}\n\nDecision: ${summary.decision} after ${countOf(n, 'item')}, total ${total} (${summary.rule})\n`);
     }
     return EXIT_OK;
   },

@@ -5,7 +5,7 @@
  * or `fail T` (time reaches T, then a failure); graded: a class name or its 0-based index.
  */
 import { acceptTime, decideGraded, decideLifetime, decideMeasurement, gradedPlan, lifetimePlan, measurementPlan } from '../engine/index.js';
-import type { Decision, ExtendedPlanSpec } from '../engine/index.js';
+import type { Decision, GradedSpec, LifetimeSpec, MeasurementSpec } from '../engine/index.js';
 import { UsageError } from './flags.js';
 
 export interface ExtendedReplay {
@@ -22,7 +22,7 @@ function lineError(lineNumber: number, text: string, allowed: string): UsageErro
 }
 
 /** Replays the results text through an extended plan; throws UsageError naming a bad line. */
-export function replayExtended(spec: ExtendedPlanSpec, text: string): ExtendedReplay {
+export function replayExtended(spec: MeasurementSpec | LifetimeSpec | GradedSpec, text: string): ExtendedReplay {
   const lines = text.split(/\r?\n/);
   const rows: string[][] = [];
   const entries = function* () {

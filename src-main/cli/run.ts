@@ -4,14 +4,14 @@
  */
 import { stat } from 'node:fs/promises';
 import os from 'node:os';
-import { checkAnyPlanSpec, type AnyPlanSpec } from '../engine/index.js';
+import { checkPlanSpec, type PlanSpec } from '../engine/index.js';
 import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
 import { PlanRepository, SourceRepository, layout, resolveDataDirectory } from '../store/index.js';
 import { visibleJson, visibleText } from '../store/textFields.js';
 import type { Command } from './command.js';
 import { CliFailure, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { anyPlanSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
+import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
 
 /** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
@@ -93,7 +93,7 @@ export const startCommand: Command = {
     const sourceName = requireFlag<string>(values, 'source', startFlags);
     const lot = requireFlag<string>(values, 'lot', startFlags);
     // Every input is checked before anything is written: the plan (saved or from flags), then the folder.
-    let inlineSpec: AnyPlanSpec | null = null;
+    let inlineSpec: PlanSpec | null = null;
     if (values.plan !== undefined) {
       rejectFlags(values, [...PLAN_FLAG_NAMES, 'plan-name'], 'cannot be combined with --plan (a saved plan)');
     } else {
@@ -103,8 +103,8 @@ export const startCommand: Command = {
       rejectFlags(values, ['plan-version'], 'applies to --plan only');
       // Only the plan flags: the spec reader refuses any flag that is not its model's.
       const planValues = Object.fromEntries(Object.entries(values).filter(([name]) => PLAN_FLAG_NAMES.includes(name)));
-      inlineSpec = anyPlanSpecFromFlags(planValues);
-      checkAnyPlanSpec(inlineSpec);
+      inlineSpec = planSpecFromFlags(planValues);
+      checkPlanSpec(inlineSpec);
     }
     const { dataDirectory, service } = await runServiceFor(args, true);
     try {

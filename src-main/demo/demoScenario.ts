@@ -2,7 +2,7 @@
  * The invented demo scenario: its sources, parts, characteristics, plans and lots. Every name is
  * made up for the demo and says so; none stands for a real firm, product or person.
  */
-import type { PlanSpec } from '../engine/index.js';
+import type { LinearCountSpec } from '../engine/index.js';
 import type { SourceKind, SourcePart } from '../store/index.js';
 
 export const DEMO_ORGANISATION = 'Demo organisation (invented)';
@@ -22,7 +22,7 @@ export interface DemoPlan {
   readonly name: string;
   readonly part: string;
   readonly characteristic: string;
-  readonly spec: PlanSpec;
+  readonly spec: LinearCountSpec;
 }
 
 /** One lot to inspect: when (days after the scenario starts), the true quality that draws its results. */

@@ -1,6 +1,6 @@
 import { neutralCount, rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from './integerLines.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 /** Exact operating characteristics of the integer plan at one quality. */
 export interface ExactPoint {
@@ -100,7 +100,7 @@ function poissonStep(
  * d <= floor(s n_t). Without truncation the recursion stops when the undecided mass is below the
  * tolerance, and reports that remainder.
  * References: Aroian, L. A. (1968), "Sequential analysis, direct method", Technometrics 10(1);
- * reference-values §9 (Tallyline shared notes).
+ * common practice, no source.
  */
 export function createExactEvaluator(
   lines: IntegerLines,

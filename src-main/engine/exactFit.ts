@@ -1,7 +1,7 @@
 import { createExactEvaluator } from './exactEvaluator.js';
 import type { ExactPoint } from './exactEvaluator.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 export interface ExactFit {
   h1: number;
@@ -25,7 +25,7 @@ export interface ExactFit {
  * intercepts, so the ASNs never rise; the result is a local optimum of the coordinate search, not a
  * proven global one.
  * References: Wald, A. (1947), Sequential Analysis, §3 (monotonicity of the risks in the limits);
- * reference-values §7, Michlin & Grabarnik (risks of truncated discrete tests need a search).
+ * computed independently, Michlin & Grabarnik (risks of truncated discrete tests need a search).
  */
 export function fitExactRisks(
   lines: IntegerLines,

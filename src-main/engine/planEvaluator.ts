@@ -1,11 +1,11 @@
 import { createExactEvaluator } from './exactEvaluator.js';
 import type { ExactEvaluator, ExactEvaluatorOptions } from './exactEvaluator.js';
-import { resolvePlan } from './planLines.js';
-import type { PlanSpec } from './spec.js';
+import { resolvePlan } from './resolvePlan.js';
+import type { LinearCountSpec } from './spec.js';
 
 /** An exact OC/ASN evaluator for a plan spec, with the spec's model and lines resolved once. */
 export interface PlanEvaluator extends ExactEvaluator {
-  readonly spec: PlanSpec;
+  readonly spec: LinearCountSpec;
 }
 
 /**
@@ -17,7 +17,7 @@ export interface PlanEvaluator extends ExactEvaluator {
  *
  * @throws PlanParameterError for an invalid spec.
  */
-export function createPlanEvaluator(spec: PlanSpec, options: ExactEvaluatorOptions = {}): PlanEvaluator {
+export function createPlanEvaluator(spec: LinearCountSpec, options: ExactEvaluatorOptions = {}): PlanEvaluator {
   const plan = resolvePlan(spec);
   return Object.assign(createExactEvaluator(plan.lines, plan.model.countStep, options), { spec });
 }

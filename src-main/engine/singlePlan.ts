@@ -1,5 +1,5 @@
-import type { ModelDefinition } from './models/model.js';
-import type { PlanSpec } from './spec.js';
+import type { LinearCountDefinition } from './models/linearCountDefinition.js';
+import type { LinearCountSpec } from './spec.js';
 
 /** A single sampling plan: inspect n items, accept iff the count is at most c. */
 export interface SinglePlan {
@@ -18,13 +18,13 @@ export interface SinglePlan {
  * found when also P(X <= c | H0, n) >= 1 - alpha. X is binomial(n, p) for pass/fail and
  * Poisson(n lambda) for count data.
  * References: Montgomery, D. C., Introduction to Statistical Quality Control, §15.2.3 (two-point
- * design); reference-values CV-08 (Tallyline shared notes).
+ * design); Montgomery §15.2.3 (first-hand), minimal plans computed independently.
  *
  * @param maxItems the search stops (returns null) beyond this n.
  */
 export function singleSamplingPlan(
-  model: ModelDefinition<PlanSpec>,
-  spec: PlanSpec,
+  model: LinearCountDefinition<LinearCountSpec>,
+  spec: LinearCountSpec,
   maxItems = 1_000_000,
 ): SinglePlan | null {
   const { theta0, theta1 } = model.hypotheses(spec);

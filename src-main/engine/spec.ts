@@ -1,9 +1,9 @@
 /**
- * Plan specifications: what the engineer asks for. A discriminated union on `model`; the later
- * models (measurement, lifetime, graded) add a member here and a definition under `models/`.
+ * Plan specifications: what the engineer asks for. One discriminated union on `model`, one member
+ * per model; each model's folder under `models/` turns its member into a plan.
  *
  * Conventions used throughout the engine:
- * - H0 is the acceptable quality (p0, lambda0), H1 the rejectable quality (p1, lambda1).
+ * - H0 is the acceptable quality (p0, lambda0, mu0, theta0), H1 the rejectable one.
  * - alpha = P(reject | H0), the producer's risk; beta = P(accept | H1), the consumer's risk.
  * - OC(theta) = P(accept | theta).
  * - Logarithms are natural (nats) unless a name says otherwise.
@@ -11,7 +11,7 @@
 
 export type FitMode = 'wald' | 'exact';
 
-interface CommonSpec {
+interface LinearCountCommon {
   /** Producer's risk, P(reject | H0), in (0, 1). */
   alpha: number;
   /** Consumer's risk, P(accept | H1), in (0, 1), with alpha + beta < 1. */
@@ -23,22 +23,24 @@ interface CommonSpec {
 }
 
 /** Pass/fail items: fraction nonconforming p, hypotheses p0 < p1. */
-export interface PassFailSpec extends CommonSpec {
+export interface PassFailSpec extends LinearCountCommon {
   model: 'passfail';
   p0: number;
   p1: number;
 }
 
 /** Nonconformities counted per unit (Poisson): rate per unit, hypotheses lambda0 < lambda1. */
-export interface CountSpec extends CommonSpec {
+export interface CountSpec extends LinearCountCommon {
   model: 'count';
   lambda0: number;
   lambda1: number;
 }
 
-export type PlanSpec = PassFailSpec | CountSpec;
-
-export type ModelName = PlanSpec['model'];
+/**
+ * The models whose LLR is linear in one cumulative whole count (pass/fail, count): they share the
+ * integer acceptance/rejection numbers and the exact recursion over them.
+ */
+export type LinearCountSpec = PassFailSpec | CountSpec;
 
 /**
  * Normal measurements with known sigma: mean mu0 (acceptable) against mu1 (rejectable), mu1 above
@@ -89,8 +91,11 @@ export interface GradedSpec {
   truncation?: number | null;
 }
 
-/** The models whose evidence is not one integer count per item: each has its own design path. */
-export type ExtendedPlanSpec = MeasurementSpec | LifetimeSpec | GradedSpec;
+/** Every plan the engine designs, discriminated by `model`. */
+export type PlanSpec = PassFailSpec | CountSpec | MeasurementSpec | LifetimeSpec | GradedSpec;
 
-/** Every plan the engine designs: the linear-count models and the extended ones. */
-export type AnyPlanSpec = PlanSpec | ExtendedPlanSpec;
+/** The name of a data model: the one list of models, from which the registry and the renderer take theirs. */
+export type ModelName = PlanSpec['model'];
+
+/** The spec of one model. */
+export type SpecOf<M extends ModelName> = Extract<PlanSpec, { model: M }>;

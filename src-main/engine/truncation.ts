@@ -1,6 +1,6 @@
 import { createExactEvaluator } from './exactEvaluator.js';
 import type { IntegerLines } from './integerLines.js';
-import type { CountStep } from './models/model.js';
+import type { CountStep } from './models/linearCountDefinition.js';
 
 /** How far above nominal the truncated plan's exact risks may be. */
 export const TRUNCATION_RISK_ALLOWANCE = 1.1;
@@ -12,7 +12,7 @@ export const TRUNCATION_RISK_ALLOWANCE = 1.1;
  * Method: one forward recursion at H0 and one at H1 over the untruncated lines; at every n the
  * risks of the plan truncated at n are the mass already rejected (accepted) plus the undecided
  * mass with d > floor(s n) (d <= floor(s n)), because the plans agree up to n.
- * References: reference-values CV-06 (Tallyline shared notes) for the truncation rule; NIST/SEMATECH
+ * References: exact recursion over the integer lines (computed independently, checked by simulation) for the truncation rule; NIST/SEMATECH
  * e-Handbook §6.2.6 for the practice of truncating at all.
  */
 export function suggestedTruncation(

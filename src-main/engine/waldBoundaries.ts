@@ -1,6 +1,6 @@
-import type { KlDivergences } from './models/model.js';
-import { validatedModel } from './models/registry.js';
-import type { PlanSpec } from './spec.js';
+import type { KlDivergences } from './models/linearCountDefinition.js';
+import { validatedDefinition } from './models/linearCountDefinitions.js';
+import type { LinearCountSpec } from './spec.js';
 
 /** Wald's limits on the LLR and the same limits as lines in (items, cumulative count). */
 export interface WaldBoundaries {
@@ -20,7 +20,7 @@ export interface WaldBoundaries {
  * Wald's ln A and ln B from the two risks.
  *
  * Method: A = (1-beta)/alpha, B = beta/(1-alpha); reject when the likelihood ratio >= A, accept when <= B.
- * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2; reference-values CV-01.
+ * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2; Wald 1947 ch. 3 (from memory).
  */
 export function waldLimits(alpha: number, beta: number): { lnA: number; lnB: number } {
   return { lnA: Math.log((1 - beta) / alpha), lnB: Math.log(beta / (1 - alpha)) };
@@ -38,8 +38,8 @@ export function waldLimits(alpha: number, beta: number): { lnA: number; lnB: num
  *
  * @throws PlanParameterError for an invalid spec.
  */
-export function waldBoundaries(spec: PlanSpec): WaldBoundaries {
-  const model = validatedModel(spec);
+export function waldBoundaries(spec: LinearCountSpec): WaldBoundaries {
+  const model = validatedDefinition(spec);
   const { lnA, lnB } = waldLimits(spec.alpha, spec.beta);
   const { countWeight, itemOffset } = model.linearStatistic(spec);
   return { lnA, lnB, h1: -lnB / countWeight, h2: lnA / countWeight, slope: itemOffset / countWeight };
@@ -55,6 +55,6 @@ export function waldBoundaries(spec: PlanSpec): WaldBoundaries {
  *
  * @throws PlanParameterError for an invalid spec.
  */
-export function klDivergences(spec: PlanSpec): KlDivergences {
-  return validatedModel(spec).klDivergences(spec);
+export function klDivergences(spec: LinearCountSpec): KlDivergences {
+  return validatedDefinition(spec).klDivergences(spec);
 }

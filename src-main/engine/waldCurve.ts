@@ -1,5 +1,5 @@
-import type { ModelDefinition } from './models/model.js';
-import type { PlanSpec } from './spec.js';
+import type { LinearCountDefinition } from './models/linearCountDefinition.js';
+import type { LinearCountSpec } from './spec.js';
 
 /** Wald's approximate OC and ASN at one quality. */
 export interface WaldPoint {
@@ -18,9 +18,9 @@ export interface WaldPoint {
  * Method: ln E[e^{hz}] is convex, 0 at h = 0 with slope E[z], so the other root lies on the side
  * opposite to the sign of E[z]; bracket it by doubling, then bisect to machine precision.
  * References: Wald, A. (1947), Sequential Analysis, §A.1 (existence and sign of h);
- * reference-values §9 (bisection).
+ * common practice, no source (bisection).
  */
-export function solveWaldExponent(model: ModelDefinition<PlanSpec>, spec: PlanSpec, theta: number): number {
+export function solveWaldExponent(model: LinearCountDefinition<LinearCountSpec>, spec: LinearCountSpec, theta: number): number {
   const mean = model.meanIncrement(spec, theta);
   if (mean === 0) return 0;
   const direction = mean < 0 ? 1 : -1; // ln E[e^{hz}] is convex with slope E[z] at 0: the root lies opposite.
@@ -67,11 +67,11 @@ export function waldOcFromExponent(h: number, lnA: number, lnB: number): number 
  * ASN = (OC ln B + (1 - OC) ln A)/E_theta[z]; where E_theta[z] = 0: OC = ln A/(ln A - ln B) and
  * ASN = -ln A ln B / E_theta[z^2].
  * References: Wald, A. (1947), Sequential Analysis, Wiley, §3.2 (OC) and §3.3 (ASN);
- * reference-values CV-05 and §9 (Tallyline shared notes).
+ * Wald 1947 OC/ASN formulas (computed independently).
  */
 export function waldPoint(
-  model: ModelDefinition<PlanSpec>,
-  spec: PlanSpec,
+  model: LinearCountDefinition<LinearCountSpec>,
+  spec: LinearCountSpec,
   lnA: number,
   lnB: number,
   theta: number,
@@ -95,7 +95,7 @@ export function waldPoint(
  * (positive: D(H1||H0)).
  * References: Wald, A. (1947), Sequential Analysis, §3.3.
  */
-export function neutralQuality(model: ModelDefinition<PlanSpec>, spec: PlanSpec): number {
+export function neutralQuality(model: LinearCountDefinition<LinearCountSpec>, spec: LinearCountSpec): number {
   let { theta0: low, theta1: high } = model.hypotheses(spec);
   for (let i = 0; i < 200; i++) {
     const middle = 0.5 * (low + high);

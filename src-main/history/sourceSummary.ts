@@ -3,7 +3,7 @@
  * nonconforming found, the decisions over time, and the pooled fraction with its caveat.
  * Pure: takes the runs as plain data, reads nothing.
  */
-import type { AnyPlanSpec, PlanSpec } from '../engine/index.js';
+import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
 
 /** One run as the summary needs it. */
 export interface HistoryRun {
@@ -15,7 +15,7 @@ export interface HistoryRun {
   /** From the plan version, when it named them. */
   readonly part: string | null;
   readonly characteristic: string | null;
-  readonly model: AnyPlanSpec['model'];
+  readonly model: PlanSpec['model'];
   /** Closed with a decision, or still open (never decided, or reopened by an override). */
   readonly status: 'open' | 'closed';
   readonly decision: 'continue' | 'accept' | 'reject';
@@ -29,7 +29,7 @@ export interface HistoryRun {
 
 /** The pooled figure of one data model: sums over the decided runs of that model. */
 export interface PooledFigure {
-  readonly model: PlanSpec['model'];
+  readonly model: LinearCountSpec['model'];
   readonly runs: number;
   readonly itemsInspected: number;
   readonly nonconformingFound: number;
@@ -91,7 +91,7 @@ export function summariseSource(runs: readonly HistoryRun[]): SourceSummary {
     list.reduce((total, run) => total + run[key], 0);
 
   // Only fractions and rates per item pool; measurements, test times and grades have no such figure.
-  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is PlanSpec['model'] => model === 'passfail' || model === 'count').sort();
+  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is LinearCountSpec['model'] => model === 'passfail' || model === 'count').sort();
   const pooled = models.map((model): PooledFigure => {
     const ofModel = decided.filter((run) => run.model === model);
     const itemsInspected = sum(ofModel, 'itemsInspected');

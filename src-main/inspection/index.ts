@@ -2,5 +2,5 @@
 export * from './runService.js';
 export * from './runTypes.js';
 export { RunReplay, RunJournalContentError } from './runReplay.js';
-export { runState, resultProblem, resultTotal, gradeIndex } from './runState.js';
+export { resultProblem, resultTotal, gradeIndex, canonicalResult } from './runState.js';
 export { RunEvidence } from './runEvidence.js';

@@ -4,7 +4,7 @@
  * with the engine's decision and rule as soon as the statistics reach one.
  */
 import { readFile } from 'node:fs/promises';
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 import {
   JournalBusyError,
   JournalTamperedError,
@@ -20,7 +20,7 @@ import {
   type QuarantineRecord,
 } from '../store/index.js';
 import { RunReplay } from './runReplay.js';
-import { gradeIndex, resultProblem } from './runState.js';
+import { canonicalResult } from './runState.js';
 import type { ItemResult, RunEntryView, RunState, RunSummary, RunView } from './runTypes.js';
 
 export interface StartRunInput {
@@ -241,7 +241,7 @@ export function createRunService(options: RunServiceOptions) {
         const handle = await writable(runId);
         openForEntry(runId, handle);
         const spec = handle.replay.header.plan.spec;
-        const problem = resultProblem(spec, input.result, handle.replay.evidence.time);
+        const problem = handle.replay.evidence.problem(input.result);
         if (problem !== null) throw new ResultRefusedError(spec.model, problem);
         const entry = await handle.writer.append('result', input.actor, {
           itemId: input.itemId?.trim() || null,
@@ -342,10 +342,4 @@ export function createRunService(options: RunServiceOptions) {
       await Promise.all(handles.map((handle) => handle.writer.close()));
     },
   };
-}
-
-/** A graded result names its class exactly as the plan spells it; other results are kept as given. */
-function canonicalResult(spec: AnyPlanSpec, result: ItemResult): ItemResult {
-  if (spec.model !== 'graded' || typeof result !== 'object' || !('grade' in result)) return result;
-  return { grade: spec.classes[gradeIndex(spec.classes, result.grade)] };
 }

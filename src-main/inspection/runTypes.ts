@@ -3,24 +3,17 @@
  * run service hands out.
  */
 import { z } from 'zod';
+import type { EvidenceState, Observation } from '../engine/index.js';
 import { JOURNAL_FORMAT, planVersionSchema, type JournalProblem, type PlanVersion, type QuarantineRecord } from '../store/index.js';
 
-export type Decision = 'continue' | 'accept' | 'reject';
-/** A measured value (measurement model), in the plan's unit. */
-export interface MeasurementResult {
-  readonly value: number;
-}
-/** A reading of accumulated test time, or a failure (at an accumulated time, when given) (lifetime model). */
-export type LifetimeResult = { readonly time: number } | { readonly failure: true; readonly time?: number };
-/** The class an item was graded into, by name (graded model). */
-export interface GradedResult {
-  readonly grade: string;
-}
+import type { Decision } from '../engine/index.js';
+export type { Decision };
+export type { MeasurementObservation as MeasurementResult, LifetimeObservation as LifetimeResult, GradedObservation as GradedResult } from '../engine/index.js';
 /**
  * One entry's result, per model: passfail 'pass' | 'fail'; count a whole number >= 0; measurement
  * `{value}`; lifetime `{time}` or `{failure: true, time?}`; graded `{grade}`.
  */
-export type ItemResult = 'pass' | 'fail' | number | MeasurementResult | LifetimeResult | GradedResult;
+export type ItemResult = Observation;
 
 const finiteNumber = z.number().finite();
 /** The shape of a result, any model; which one a run takes is checked against its plan (resultProblem). */
@@ -102,40 +95,21 @@ export interface RunEntryView {
 }
 
 /**
- * The statistics of a run now. Common: decision, rule (null while continuing), llr, n, total.
+ * The statistics of a run now (the engine's evidence state). Common: decision, rule (null while
+ * continuing), llr, n, total.
  * - passfail / count (no `model` field): n items, total nonconforming items or nonconformities.
  * - measurement: n values, total = sum, plus `sum` and `mean` (null before the first value).
  * - lifetime: n counted entries, total = failures, plus `time` (accumulated test time; at a decision
  *   by a time reading, the time the line was reached) and `failures`.
  * - graded: n items, total = demerits, plus `counts` per class (in the plan's class order) and `demerits`.
  */
-export type RunState = CountRunState | MeasurementRunState | LifetimeRunState | GradedRunState;
-
-interface RunStateCommon {
-  readonly decision: Decision;
-  readonly n: number;
-  readonly total: number;
-  readonly llr: number;
-  readonly rule: string | null;
-}
-export interface CountRunState extends RunStateCommon {
-  readonly model?: undefined;
-}
-export interface MeasurementRunState extends RunStateCommon {
-  readonly model: 'measurement';
-  readonly sum: number;
-  readonly mean: number | null;
-}
-export interface LifetimeRunState extends RunStateCommon {
-  readonly model: 'lifetime';
-  readonly time: number;
-  readonly failures: number;
-}
-export interface GradedRunState extends RunStateCommon {
-  readonly model: 'graded';
-  readonly counts: readonly number[];
-  readonly demerits: number;
-}
+export type RunState = EvidenceState;
+export type {
+  LinearCountEvidenceState as CountRunState,
+  MeasurementEvidenceState as MeasurementRunState,
+  LifetimeEvidenceState as LifetimeRunState,
+  GradedEvidenceState as GradedRunState,
+} from '../engine/index.js';
 
 export type RunStatus = 'open' | 'closed';
 

@@ -1,4 +1,5 @@
 import type { BoundaryStep, DecisionRecordInput, RecordEntry } from './recordInput.js';
+import { countNoun, countOf } from '../engine/countWords.js';
 import { FONT_REGULAR } from './fonts.js';
 import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
 
@@ -129,7 +130,7 @@ export function drawEvidenceChart(layout: RecordLayout, input: DecisionRecordInp
   layout.ensureSpace(totalHeight);
   const frame: Frame = { left: layout.left + 40, top: layout.y + 16, width: layout.width - 40, height: chartHeight, xMax, yMax };
   const alt =
-    `Chart of cumulative ${countWord} against items inspected: ${counted} items, ${path[counted]} ${countWord}, ` +
+    `Chart of cumulative ${countWord} against items inspected: ${countOf(counted, 'item')}, ${path[counted]} ${input.plan.model === 'count' ? countNoun(path[counted], 'nonconformity', 'nonconformities') : countWord}, ` +
     `drawn against the plan's acceptance and rejection numbers.`;
   layout.tagged(
     'Figure',

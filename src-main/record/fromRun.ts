@@ -3,13 +3,13 @@
  * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
  * the software's identity. The quality estimate is the sequential one once the run is decided.
  */
-import { designPlan, limitRows, resolvePlan, decide, isExtendedPlanSpec, PlanParameterError, type AnyPlanSpec, type ExtendedPlanSpec, type PlanSpec } from '../engine/index.js';
+import { designLinearCountPlan, linearCountLimitRows, resolvePlan, decideLinearCount, isLinearCountSpec, PlanParameterError, type GradedSpec, type LifetimeSpec, type MeasurementSpec, type PlanSpec, type LinearCountSpec } from '../engine/index.js';
 import { estimateAfterStop } from '../engine/estimation/index.js';
 import { resultTotal } from '../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
 import { modelChart } from './modelChartData.js';
 import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
-import { naiveQualityEstimate } from './naiveQualityEstimate.js';
+import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
 import type {
   BoundaryStep,
   DecisionRecordInput,
@@ -42,13 +42,13 @@ export function recordIdFor(runId: string, fingerprint: string): string {
   return `DR-${runId.split('-').at(-1)}-${fingerprint.slice(0, 8)}`;
 }
 
-function qualityUnit(spec: PlanSpec): string {
+function qualityUnit(spec: LinearCountSpec): string {
   return spec.model === 'passfail' ? 'fraction nonconforming' : 'nonconformities per item';
 }
 
 /** The plan of a pass/fail or count run (the other models take modelRecordParts). */
-function linearSpec(spec: AnyPlanSpec): PlanSpec {
-  if (spec.model === 'passfail' || spec.model === 'count') return spec;
+function linearSpec(spec: PlanSpec): LinearCountSpec {
+  if (isLinearCountSpec(spec)) return spec;
   throw new Error(`a ${spec.model} plan has no acceptance numbers`);
 }
 
@@ -56,7 +56,7 @@ function linearSpec(spec: AnyPlanSpec): PlanSpec {
  * The plan, decision, estimate and chart of a measurement, lifetime or graded run, in its natural
  * units; the decision's numbers are the evidence as the run stands (as it closed, when closed).
  */
-function modelRecordParts(read: RunJournalRead, spec: ExtendedPlanSpec, confidenceLevel: number) {
+function modelRecordParts(read: RunJournalRead, spec: MeasurementSpec | LifetimeSpec | GradedSpec, confidenceLevel: number) {
   const { replay } = read;
   const { plan } = replay.header;
   const state = replay.evidence.state();
@@ -83,7 +83,7 @@ function modelRecordParts(read: RunJournalRead, spec: ExtendedPlanSpec, confiden
 function recordPlan(read: RunJournalRead): RecordPlan {
   const { plan } = read.replay.header;
   const spec = linearSpec(plan.spec);
-  const design = designPlan(spec, { curvePoints: 2 });
+  const design = designLinearCountPlan(spec, { curvePoints: 2 });
   const unit = qualityUnit(spec);
   const [symbol0, symbol1] = spec.model === 'passfail' ? ['p0', 'p1'] : ['lambda0', 'lambda1'];
   return {
@@ -126,14 +126,14 @@ function recordEntries(read: RunJournalRead): RecordEntry[] {
 }
 
 /** The item count the record's chart and the Records place draw up to. */
-export function evidenceHorizon(spec: PlanSpec, itemsInspected: number): number {
+export function evidenceHorizon(spec: LinearCountSpec, itemsInspected: number): number {
   const { lines } = resolvePlan(spec);
   const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * itemsInspected));
   return lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, itemsInspected));
 }
 
-function boundarySteps(spec: PlanSpec, itemsInspected: number): BoundaryStep[] {
-  return limitRows(resolvePlan(spec).lines, evidenceHorizon(spec, itemsInspected)).map((row) => ({
+function boundarySteps(spec: LinearCountSpec, itemsInspected: number): BoundaryStep[] {
+  return linearCountLimitRows(resolvePlan(spec).lines, evidenceHorizon(spec, itemsInspected)).map((row) => ({
     itemsInspected: row.n,
     acceptanceNumber: row.accept,
     rejectionNumber: row.reject,
@@ -150,7 +150,7 @@ function recordDecision(read: RunJournalRead): RecordDecision {
   if (close !== null) {
     return { state: closedState(close.rule, close.decision), rule: close.rule, itemsInspected: close.n, nonconformingFound: close.total, finalLogLikelihoodRatio: close.llr };
   }
-  const now = decide(linearSpec(replay.header.plan.spec), replay.n, replay.total);
+  const now = decideLinearCount(linearSpec(replay.header.plan.spec), replay.n, replay.total);
   const reopened = replay.lastClose !== null;
   return {
     state: 'continue',
@@ -168,7 +168,7 @@ function recordDecision(read: RunJournalRead): RecordDecision {
  * exact interval from the plan's exact stopping distribution; otherwise (or where that method does
  * not apply to the stop) the naive d/n with its fixed-sample interval, labelled as such.
  */
-export function recordQualityEstimate(spec: PlanSpec, decision: RecordDecision, confidenceLevel: number): QualityEstimate | null {
+export function recordQualityEstimate(spec: LinearCountSpec, decision: RecordDecision, confidenceLevel: number): QualityEstimate | null {
   const { itemsInspected: n, nonconformingFound: total } = decision;
   if (n === 0) return null;
   const naive = naiveQualityEstimate({ model: spec.model, itemsInspected: n, nonconformities: total, confidenceLevel });
@@ -216,7 +216,7 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
   const { header: runHeader, lastClose, status } = read.replay;
   const { run, plan, source } = runHeader;
   const opened = read.entries[0];
-  const model = isExtendedPlanSpec(plan.spec) ? modelRecordParts(read, plan.spec, context.settings.confidenceLevel) : null;
+  const model = isLinearCountSpec(plan.spec) ? null : modelRecordParts(read, plan.spec, context.settings.confidenceLevel);
   const decision = model?.decision ?? recordDecision(read);
   const generated = context.generatedAt;
   return {

@@ -10,11 +10,16 @@ import {
   lifetimePlan,
   measurementBoundaries,
   measurementPlan,
-  type ExtendedPlanSpec,
+  type GradedSpec,
+  type LifetimeSpec,
+  type MeasurementSpec,
 } from '../engine/index.js';
 import { RunEvidence, type RunEntryView, type RunState } from '../inspection/index.js';
 import { formatNumber } from './format.js';
 import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
+
+/** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */
+type ModelPartsSpec = MeasurementSpec | LifetimeSpec | GradedSpec;
 
 /** Items drawn past the last one, so the lines just ahead stay in view. */
 const HORIZON_MARGIN = 1.1;
@@ -26,7 +31,7 @@ function itemSpan(n: number, truncation: number | null | undefined): number {
 }
 
 /** The chart of a run whose evidence is `state` after the counted `results`. */
-export function modelChart(spec: ExtendedPlanSpec, results: readonly RunEntryView[], state: RunState): ModelRecordDetail['chart'] {
+export function modelChart(spec: ModelPartsSpec, results: readonly RunEntryView[], state: RunState): ModelRecordDetail['chart'] {
   const counted = results.filter((entry) => !entry.voided);
   const evidence = new RunEvidence(spec);
   const states = [evidence.state(), ...counted.map((entry) => (evidence.add(entry.result), evidence.state()))];

@@ -4,16 +4,22 @@
  * sequential-exact interval exists only for pass/fail and count plans) and each entry's result.
  */
 import {
+  countNoun,
   designGradedPlan,
   designLifetimePlan,
   designMeasurementPlan,
-  type ExtendedPlanSpec,
+  type GradedSpec,
+  type LifetimeSpec,
+  type MeasurementSpec,
 } from '../engine/index.js';
 import { normalQuantile } from '../engine/numerics/normalDistribution.js';
 import type { ItemResult, RunState } from '../inspection/index.js';
 import { formatCount, formatFixed, formatNumber } from './format.js';
-import { naiveQualityEstimate } from './naiveQualityEstimate.js';
+import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
 import type { ModelRecordDetail, QualityEstimate, RecordPlan } from './recordInput.js';
+
+/** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */
+type ModelPartsSpec = MeasurementSpec | LifetimeSpec | GradedSpec;
 
 /** Said on every estimate of these models. */
 export const SEQUENTIAL_INTERVAL_NOTE =
@@ -24,11 +30,11 @@ type PlanFigures = Pick<
   'acceptableQuality' | 'rejectableQuality' | 'producerRiskExact' | 'consumerRiskExact' | 'boundaries' | 'truncation' | 'averageSampleNumberAtAcceptable' | 'averageSampleNumberAtRejectable'
 >;
 
-const unitOf = (spec: ExtendedPlanSpec): string => ('unit' in spec && spec.unit ? spec.unit : spec.model === 'lifetime' ? 'time units' : '');
+const unitOf = (spec: ModelPartsSpec): string => ('unit' in spec && spec.unit ? spec.unit : spec.model === 'lifetime' ? 'time units' : '');
 const withUnit = (value: number, unit: string): string => `${formatNumber(value)}${unit ? ` ${unit}` : ''}`;
 
 /** The plan's figures and its rows in natural units. */
-export function modelPlan(spec: ExtendedPlanSpec): { figures: PlanFigures; rows: ModelRecordDetail['planRows'] } {
+export function modelPlan(spec: ModelPartsSpec): { figures: PlanFigures; rows: ModelRecordDetail['planRows'] } {
   const unit = unitOf(spec);
   if (spec.model === 'measurement') {
     const design = designMeasurementPlan(spec, { curvePoints: 2 });
@@ -111,27 +117,27 @@ export function modelPlan(spec: ExtendedPlanSpec): { figures: PlanFigures; rows:
 }
 
 /** The evidence rows of the decision section and the line under the headline. */
-export function modelEvidence(spec: ExtendedPlanSpec, state: RunState): { rows: ModelRecordDetail['decisionRows']; facts: string } {
+export function modelEvidence(spec: ModelPartsSpec, state: RunState): { rows: ModelRecordDetail['decisionRows']; facts: string } {
   const unit = unitOf(spec);
   const llr = `final LLR ${formatFixed(state.llr)}`;
   if (state.model === 'measurement') {
     const mean = state.mean === null ? 'none yet' : withUnit(state.mean, unit);
     return {
       rows: [['Measurements', formatCount(state.n)], ['Sum of measurements', withUnit(state.sum, unit)], ['Mean', mean]],
-      facts: `${formatCount(state.n)} measurements, mean ${mean}, ${llr}`,
+      facts: `${formatCount(state.n)} ${countNoun(state.n, 'measurement')}, mean ${mean}, ${llr}`,
     };
   }
   if (state.model === 'lifetime') {
     return {
       rows: [['Accumulated test time', withUnit(state.time, unit)], ['Failures', formatCount(state.failures)], ['Entries counted', formatCount(state.n)]],
-      facts: `${withUnit(state.time, unit)} of test time, ${formatCount(state.failures)} failures, ${llr}`,
+      facts: `${withUnit(state.time, unit)} of test time, ${formatCount(state.failures)} ${countNoun(state.failures, 'failure')}, ${llr}`,
     };
   }
   if (state.model === 'graded' && spec.model === 'graded') {
     const counts = spec.classes.map((name, k) => `${name} ${formatCount(state.counts[k])}`).join(', ');
     return {
       rows: [['Items graded', formatCount(state.n)], ['Items per class', counts], ['Demerits', formatNumber(state.demerits)]],
-      facts: `${formatCount(state.n)} items graded (${counts}), ${formatNumber(state.demerits)} demerits, ${llr}`,
+      facts: `${formatCount(state.n)} ${countNoun(state.n, 'item')} graded (${counts}), ${formatNumber(state.demerits)} demerits, ${llr}`,
     };
   }
   throw new Error(`the run's state does not match its ${spec.model} plan`);
@@ -148,7 +154,7 @@ export function modelEvidence(spec: ExtendedPlanSpec, state: RunState): { rows: 
  * References: Epstein, B. and Sobel, M. (1953), "Life testing", JASA 48 (chi-square limits for the
  * exponential mean, from memory); Garwood (1936), Biometrika 28; Clopper and Pearson (1934), Biometrika 26.
  */
-export function modelEstimate(spec: ExtendedPlanSpec, state: RunState, confidenceLevel: number): QualityEstimate | null {
+export function modelEstimate(spec: ModelPartsSpec, state: RunState, confidenceLevel: number): QualityEstimate | null {
   if (state.n === 0) return null;
   const unit = unitOf(spec);
   const percent = `${Number((confidenceLevel * 100).toPrecision(3))} %`;
@@ -199,7 +205,7 @@ export function modelEstimate(spec: ExtendedPlanSpec, state: RunState, confidenc
 }
 
 /** One result as the record prints it. */
-export function modelResultText(spec: ExtendedPlanSpec, result: ItemResult): string {
+export function modelResultText(spec: ModelPartsSpec, result: ItemResult): string {
   if (typeof result !== 'object') return String(result);
   const unit = unitOf(spec);
   if ('value' in result) return withUnit(result.value, unit);

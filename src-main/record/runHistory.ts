@@ -2,7 +2,7 @@
  * The history of runs for the Records place: one row per run journal in the data folder, read
  * without locks, and the filters by source, period (the run's start date) and decision.
  */
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 import { folderNames, layout } from '../store/index.js';
 import { localTimestamp, readRunJournal, type RunJournalRead } from './runJournalRead.js';
 
@@ -26,7 +26,7 @@ export interface HistoryRow {
   readonly itemsInspected: number;
   /** Nonconforming items (passfail) or nonconformities (count). */
   readonly nonconformingFound: number;
-  readonly model: AnyPlanSpec['model'];
+  readonly model: PlanSpec['model'];
   /** False when the journal's chain does not verify (the row is shown, its record is refused). */
   readonly verified: boolean;
 }

@@ -1,4 +1,5 @@
 import type { DecisionRecordInput, RecordState, RecordSubject } from './recordInput.js';
+import { countNoun } from '../engine/countWords.js';
 import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
 import { formatCount, formatFixed, formatTimestamp } from './format.js';
 import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
@@ -84,8 +85,8 @@ function drawDecisionBox(layout: RecordLayout, input: DecisionRecordInput): void
   const headline = stateHeadline(decision.state);
   const facts =
     input.modelDetail?.facts ??
-    `${formatCount(decision.itemsInspected)} items inspected, ${formatCount(decision.nonconformingFound)} ` +
-    `${input.plan.model === 'count' ? 'nonconformities' : 'nonconforming'} found, final LLR ${formatFixed(decision.finalLogLikelihoodRatio)}`;
+    `${formatCount(decision.itemsInspected)} ${countNoun(decision.itemsInspected, 'item')} inspected, ${formatCount(decision.nonconformingFound)} ` +
+    `${input.plan.model === 'count' ? countNoun(decision.nonconformingFound, 'nonconformity', 'nonconformities') : 'nonconforming'} found, final LLR ${formatFixed(decision.finalLogLikelihoodRatio)}`;
   doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.body);
   const ruleHeight = doc.heightOfString(decision.rule, { width: innerWidth });
   const height = padding + 20 + ruleHeight + 2 + TYPE_SIZE.body + 4 + padding;

@@ -4,8 +4,8 @@
  * its specific message, e.g. "p1 must be greater than p0").
  */
 import { z } from 'zod';
-import { checkAnyPlanSpec, PlanParameterError } from '../engine/index.js';
-import type { AnyPlanSpec } from '../engine/index.js';
+import { checkPlanSpec, PlanParameterError } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 
 /** The number schemas a use of the builder wants for each kind of parameter. */
 interface SpecNumbers {
@@ -53,7 +53,7 @@ export function planSpecSchemas({ proportion, positive, whole }: SpecNumbers) {
 
 /**
  * Plan files and journal headers (so restore and journal replay too): every range checked, then the
- * engine's one spec check (checkAnyPlanSpec: the relations p0 < p1, theta1 < theta0, sums, and the
+ * engine's one spec check (checkPlanSpec: the relations p0 < p1, theta1 < theta0, sums, and the
  * bounds on truncation, failures and the work of a design), its message kept as the issue's.
  */
 export const planSpecSchema = planSpecSchemas({
@@ -62,9 +62,9 @@ export const planSpecSchema = planSpecSchemas({
   whole: z.number().int().positive(),
 }).any.superRefine((spec, context) => {
   try {
-    checkAnyPlanSpec(spec as AnyPlanSpec);
+    checkPlanSpec(spec as PlanSpec);
   } catch (error) {
     if (!(error instanceof PlanParameterError)) throw error;
     context.addIssue({ code: 'custom', path: [error.parameter], message: error.message });
   }
-}) satisfies z.ZodType<AnyPlanSpec>;
+}) satisfies z.ZodType<PlanSpec>;

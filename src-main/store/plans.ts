@@ -4,7 +4,7 @@
  */
 import { folderNames } from './folderNames.js';
 import { z } from 'zod';
-import type { AnyPlanSpec } from '../engine/index.js';
+import type { PlanSpec } from '../engine/index.js';
 import { newId } from './ids.js';
 import { readJsonFile, writeJsonFileOnce } from './jsonFile.js';
 import { layout } from './layout.js';
@@ -34,7 +34,7 @@ export interface PlanVersion {
   /** The part of the source this plan is for, and the characteristic checked (absent when not named). */
   readonly part?: string;
   readonly characteristic?: string;
-  readonly spec: AnyPlanSpec;
+  readonly spec: PlanSpec;
   readonly createdAt: string;
 }
 
@@ -45,7 +45,7 @@ export interface PlanDraft {
   readonly sourceId?: string | null;
   readonly part?: string | null;
   readonly characteristic?: string | null;
-  readonly spec: AnyPlanSpec;
+  readonly spec: PlanSpec;
 }
 
 const VERSION_FILE = /^v(\d+)\.json$/;
@@ -60,7 +60,7 @@ export class PlanRepository {
   /** Save a draft as a new plan (version 1) or as the next version of `draft.id`. */
   async save(draft: PlanDraft): Promise<PlanVersion> {
     const id = draft.id ?? newId('plan', this.clock());
-    const spec = planSpecSchema.parse(draft.spec) as AnyPlanSpec;
+    const spec = planSpecSchema.parse(draft.spec) as PlanSpec;
     for (let attempt = 0; ; attempt += 1) {
       const version = ((await this.versions(id)).at(-1) ?? 0) + 1;
       const plan: PlanVersion = {

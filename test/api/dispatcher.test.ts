@@ -7,7 +7,7 @@ const dispatch = createDispatcher(createHandlers({ dataDirectory: '/nonexistent-
 const nistExample = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 describe('the channel dispatcher', () => {
-  it('answers plan.limits with the NIST/SEMATECH e-Handbook §6.2.6 limits (h1 0.939, h2 1.205, s 0.0397; reference-values CV-02/03)', async () => {
+  it('answers plan.limits with the NIST/SEMATECH e-Handbook §6.2.6 limits (h1 0.939, h2 1.205, s 0.0397; NIST/SEMATECH e-Handbook §6.2.6 (first-hand))', async () => {
     const result = await dispatch('plan.limits', nistExample);
     expect(result.ok).toBe(true);
     if (!result.ok) return;

@@ -6,18 +6,18 @@ import type { InspectionRunView, InspectionStep } from '../../src-main/api/chann
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
-import { liveState, type LiveState, type PlanSpec } from '../../src-main/engine/index.js';
+import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { PlanRepository, SourceRepository } from '../../src-main/store/index.js';
 
-/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, reference-values CV-02). */
-const nistSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). */
+const nistSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 const folders: string[] = [];
 afterEach(async () => {
   for (const folder of folders.splice(0)) await rm(folder, { recursive: true, force: true });
 });
 
-async function setUp(spec: PlanSpec = nistSpec): Promise<{ dispatch: Dispatch; planId: string; sourceId: string }> {
+async function setUp(spec: LinearCountSpec = nistSpec): Promise<{ dispatch: Dispatch; planId: string; sourceId: string }> {
   const data = await mkdtemp(path.join(os.tmpdir(), 'tallyline-inspection-channels-'));
   folders.push(data);
   const source = await new SourceRepository(data).create({ name: 'Acme Castings' });
@@ -39,10 +39,10 @@ describe('the inspection channels', () => {
     const { dispatch, planId, sourceId } = await setUp();
     const view = await started(dispatch, planId, sourceId);
     expect(view.run).toMatchObject({ lot: 'L-2041', lotSize: 400, inspector: 'Ana', status: 'open', sourceName: 'Acme Castings' });
-    expect(view.live).toEqual(liveState(nistSpec, 0, 0));
+    expect(view.live).toEqual(linearCountLiveState(nistSpec, 0, 0));
     expect(view.entries).toEqual([]);
-    // Earliest accept of the NIST example is at n = 24 (h1 / s = 0.939 / 0.0397 = 23.7, reference-values CV-02 [C]).
-    expect((view.live as LiveState).itemsToEarliestAccept).toBe(24);
+    // Earliest accept of the NIST example is at n = 24 (h1 / s = 0.939 / 0.0397 = 23.7, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
+    expect((view.live as LinearCountLiveState).itemsToEarliestAccept).toBe(24);
     expect(view.frame.horizon).toBeGreaterThanOrEqual(24);
     expect(view.frame.limits[23]).toMatchObject({ n: 24, accept: 0 });
   });
@@ -52,7 +52,7 @@ describe('the inspection channels', () => {
     const { run } = await started(dispatch, planId, sourceId);
     value(await dispatch('inspection.record', { runId: run.id, result: 'pass' }));
     const step = value<InspectionStep>(await dispatch('inspection.record', { runId: run.id, result: 'fail', itemId: 'SN-7', category: 'burr' }));
-    const engine = liveState(nistSpec, 2, 1);
+    const engine = linearCountLiveState(nistSpec, 2, 1);
     expect(step).toMatchObject({ seq: 2, kind: 'result', run: { status: 'open', decision: null } });
     expect(step.entry).toMatchObject({ seq: 2, itemId: 'SN-7', result: 'fail', category: 'burr', actor: 'Ana', after: { n: 2, total: 1, llr: engine.llr } });
     expect(step.live).toEqual(engine);
@@ -65,7 +65,7 @@ describe('the inspection channels', () => {
     value(await dispatch('inspection.record', { runId: run.id, result: 'fail' }));
     const step = value<InspectionStep>(await dispatch('inspection.void', { runId: run.id, reason: 'scanned the wrong part' }));
     expect(step.entry).toMatchObject({ seq: 2, voided: true, voidReason: 'scanned the wrong part', after: null });
-    expect(step.live).toEqual(liveState(nistSpec, 1, 0));
+    expect(step.live).toEqual(linearCountLiveState(nistSpec, 1, 0));
     const reopened = value<InspectionRunView>(await dispatch('inspection.open', { runId: run.id }));
     expect(reopened.entries.map((entry) => [entry.seq, entry.voided, entry.after?.n ?? null])).toEqual([
       [1, false, 1],
@@ -79,9 +79,9 @@ describe('the inspection channels', () => {
     let step: InspectionStep;
     do step = value<InspectionStep>(await dispatch('inspection.record', { runId: run.id, result: 'fail' }));
     while (step.run.status === 'open');
-    // Two nonconforming in the first two items reject: Re(2) = ceil(0.0397 x 2 + 1.205) = 2 (reference-values CV-02 [C]).
+    // Two nonconforming in the first two items reject: Re(2) = ceil(0.0397 x 2 + 1.205) = 2 (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
     expect(step.state.n).toBe(2);
-    expect(step.run).toMatchObject({ status: 'closed', decision: 'reject', rule: liveState(nistSpec, 2, 2).rule });
+    expect(step.run).toMatchObject({ status: 'closed', decision: 'reject', rule: linearCountLiveState(nistSpec, 2, 2).rule });
     expect(step.run.closedAt).not.toBeNull();
     const refused = await dispatch('inspection.record', { runId: run.id, result: 'pass' });
     expect(refused).toMatchObject({ ok: false, code: 'conflict' });
@@ -116,11 +116,11 @@ describe('the inspection channels', () => {
   });
 
   it('takes a count per unit on a count plan', async () => {
-    const countSpec: PlanSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
+    const countSpec: LinearCountSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
     const { dispatch, planId, sourceId } = await setUp(countSpec);
     const { run } = await started(dispatch, planId, sourceId);
     const step = value<InspectionStep>(await dispatch('inspection.record', { runId: run.id, result: 1 }));
-    expect(step.live).toEqual(liveState(countSpec, 1, 1));
+    expect(step.live).toEqual(linearCountLiveState(countSpec, 1, 1));
     expect(await dispatch('inspection.record', { runId: run.id, result: 'pass' })).toMatchObject({ ok: false, code: 'invalid-parameter' });
     expect(await dispatch('inspection.record', { runId: run.id, result: -1 })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'result' });
   });

@@ -15,7 +15,7 @@ import {
   gradedLiveState,
   lifetimeLiveState,
   measurementLiveState,
-  type AnyPlanSpec,
+  type PlanSpec,
 } from '../../src-main/engine/index.js';
 import { SourceRepository } from '../../src-main/store/index.js';
 import { gradedSpec, lifetimeSpec, measurementSpec } from '../inspection/modelSpecs.js';
@@ -37,7 +37,7 @@ function value<T>(result: ChannelResult<unknown>): T {
   return result.value as T;
 }
 
-async function startedRun(dispatch: Dispatch, sourceId: string, spec: AnyPlanSpec): Promise<InspectionRunView> {
+async function startedRun(dispatch: Dispatch, sourceId: string, spec: PlanSpec): Promise<InspectionRunView> {
   const plan = value<SavedPlan>(await dispatch('plan.save', { name: `${spec.model} plan`, source: { id: sourceId }, spec }));
   return value<InspectionRunView>(await dispatch('inspection.start', { planId: plan.id, sourceId, lot: 'LK-1', inspector: 'Ana' }));
 }
@@ -66,7 +66,7 @@ describe('plan channels for every model', () => {
       const next = value<SavedPlan>(await dispatch('plan.save', { id: saved.id, name: 'Invented plan', source: { id: sourceId }, spec: { ...spec, alpha: 0.04 } }));
       expect(next.version).toBe(2);
       const file = value<{ text: string }>(await dispatch('plan.export', { id: saved.id, version: 1 }));
-      const imported = value<{ spec: AnyPlanSpec }>(await dispatch('plan.import', { text: file.text }));
+      const imported = value<{ spec: PlanSpec }>(await dispatch('plan.import', { text: file.text }));
       expect(imported.spec).toEqual(spec);
     }
   });
@@ -131,7 +131,7 @@ describe('inspection channels for every model', () => {
 
   it('inspection.record refuses a result of another model, naming what the plan takes', async () => {
     const { dispatch, sourceId } = await setUp();
-    const cases: Array<[AnyPlanSpec, unknown, RegExp]> = [
+    const cases: Array<[PlanSpec, unknown, RegExp]> = [
       [measurementSpec, 'pass', /This run's plan is measurement: a measurement plan takes a measured value/],
       [lifetimeSpec, { value: 3 }, /This run's plan is lifetime: a lifetime plan takes \{ "time": T \}/],
       [gradedSpec, { grade: 'scrap' }, /"scrap" names no class of this plan; its classes are "conforming", "minor", "major"/],

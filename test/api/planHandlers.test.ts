@@ -5,9 +5,9 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { ChannelResult } from '../../src-main/api/result.js';
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
-import { designPlan } from '../../src-main/engine/index.js';
+import { designLinearCountPlan } from '../../src-main/engine/index.js';
 
-// NIST/SEMATECH e-Handbook §6.2.6 example inputs (reference-values CV-02/03).
+// NIST/SEMATECH e-Handbook §6.2.6 example inputs (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)).
 const nistExample = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 } as const;
 
 let dataDirectory: string;
@@ -26,18 +26,18 @@ function valueOf<T>(result: ChannelResult<unknown>): T {
   return result.value as T;
 }
 
-type Designed = { superseded: false; spec: { truncation?: number | null }; design: ReturnType<typeof designPlan> };
+type Designed = { superseded: false; spec: { truncation?: number | null }; design: ReturnType<typeof designLinearCountPlan> };
 
 describe('plan.design', () => {
   it('answers with exactly what the engine designs for the spec', async () => {
     const answer = valueOf<Designed>(await dispatch('plan.design', { spec: nistExample, curvePoints: 21 }));
     expect(answer.superseded).toBe(false);
-    expect(answer.design).toEqual(designPlan(nistExample, { curvePoints: 21 }));
-    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // reference-values CV-08
+    expect(answer.design).toEqual(designLinearCountPlan(nistExample, { curvePoints: 21 }));
+    expect(answer.design.single).toMatchObject({ n: 52, c: 2 }); // Montgomery §15.2.3 (first-hand), minimal plans computed independently
   });
 
   it('truncates at the engine suggestion when asked to, and says which truncation it used', async () => {
-    const untruncated = designPlan(nistExample);
+    const untruncated = designLinearCountPlan(nistExample);
     const answer = valueOf<Designed>(await dispatch('plan.design', { spec: { ...nistExample, truncation: 500 }, suggestTruncation: true }));
     expect(answer.spec.truncation).toBe(untruncated.suggestedTruncation);
     expect(answer.design.truncation).toBe(untruncated.suggestedTruncation);
@@ -47,7 +47,7 @@ describe('plan.design', () => {
     const older = dispatch('plan.design', { spec: nistExample, stream: 's', ticket: 1 });
     const newer = dispatch('plan.design', { spec: { ...nistExample, p1: 0.12 }, stream: 's', ticket: 2 });
     expect(valueOf<{ superseded: boolean }>(await older)).toEqual({ superseded: true });
-    expect(valueOf<Designed>(await newer).design.boundaries.h1).toBeCloseTo(designPlan({ ...nistExample, p1: 0.12 }).boundaries.h1, 12);
+    expect(valueOf<Designed>(await newer).design.boundaries.h1).toBeCloseTo(designLinearCountPlan({ ...nistExample, p1: 0.12 }).boundaries.h1, 12);
   });
 
   it('refuses an impossible plan with the engine message and the parameter as field', async () => {

@@ -7,12 +7,12 @@ import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.j
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
 import type { RestoreReport } from '../../src-main/backup/index.js';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../src-main/engine/index.js';
 import { createRunService } from '../../src-main/inspection/index.js';
 import type { Settings, Source } from '../../src-main/store/index.js';
 
-/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, reference-values CV-02). */
-const spec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+/** Wald plan p0 1 %, p1 10 %, alpha 5 %, beta 10 % (the NIST/SEMATECH §6.2.6 example, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). */
+const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 const folders: string[] = [];
 afterEach(async () => {
@@ -82,7 +82,7 @@ describe('the source channels', () => {
     const other = value<Source>(await dispatch('source.create', { name: 'Heron Mouldings', kind: 'supplier' }));
     const plan = value<{ id: string }>(await dispatch('plan.save', { name: 'p', source: { id: source.id }, spec }));
     const service = createRunService({ dataDirectory: data });
-    // NIST plan: 24 passes accept (earliest acceptance at n = 24, reference-values CV-02 [C]); 2 fails in 2 items reject
+    // NIST plan: 24 passes accept (earliest acceptance at n = 24, NIST/SEMATECH e-Handbook §6.2.6 (first-hand)); 2 fails in 2 items reject
     // (reject when d >= h2 + s n = 1.205 + 0.0397 n: 1.28 at n = 2, worked by hand), 1 fail in 1 item does not (1.245).
     const accepted = await service.startRun({ planId: plan.id, sourceId: source.id, lot: 'A' });
     for (let item = 0; item < 24; item += 1) await service.recordResult(accepted.run.id, { result: 'pass', actor: 'x' });

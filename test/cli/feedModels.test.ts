@@ -38,6 +38,17 @@ describe('tallyline run start and feed for measurement, lifetime and graded plan
     expect(shown.entries.map((entry) => entry.result)).toEqual([{ value: 10.9 }, { value: 10.9 }]);
   });
 
+  it('feeds the same measured values in two orders to the same decision when their sum lies on the truncation line', async () => {
+    const flags = ['--model', 'measurement', '--mu0', '10', '--mu1', '11', '--sigma', '1', '--alpha', '0.1', '--beta', '0.1', '--truncate', '3'];
+    for (const input of ['10.3\n10.4\n10.8\n', '10.3\n10.8\n10.4\n']) {
+      const runId = await start(flags);
+      const fed = await runCli(['feed', '--run', runId, '--data-dir', data, '--json'], { input });
+      expect(fed.code).toBe(0);
+      // 10.3 + 10.4 + 10.8 = 31.5 = 3 x 10.5 exactly: LLR 0, accepted at the truncation (hand computation).
+      expect(fed.stdout.trim().split('\n').map((line) => JSON.parse(line).state)).toEqual(['continue', 'continue', 'accept']);
+    }
+  });
+
   it('feeds time readings and failures to an acceptance, and refuses a bad line with its number', async () => {
     const runId = await start(['--model', 'lifetime', '--theta0', '1000', '--theta1', '500', '--alpha', '0.1', '--beta', '0.1', '--unit', 'unit-hours']);
     const bad = await runCli(['feed', '--run', runId, '--data-dir', data], { input: 'time 120.5\nfail\nbroke\n' });

@@ -6,22 +6,22 @@ const lifetime = ['--model', 'lifetime', '--theta0', '2000', '--theta1', '1000',
 const graded = ['--model', 'graded', '--classes', 'conforming,minor,major', '--p0', '0.90,0.08,0.02', '--p1', '0.75,0.17,0.08', '--alpha', '0.05', '--beta', '0.1'];
 
 describe('tallyline plan and replay for measurement, lifetime and graded models', () => {
-  it('plans a measurement model as JSON: CV-17 exact OC 0.97066 at mu0, lines in sum units', async () => {
+  it('plans a measurement model as JSON: normal SPRT by the Fredholm integral equation (computed independently) exact OC 0.97066 at mu0, lines in sum units', async () => {
     const { code, stdout, stderr } = await runCli(['plan', ...measurement, '--points', '3', '--json']);
     expect(stderr).toBe('');
     expect(code).toBe(0);
     const design = JSON.parse(stdout);
-    expect(1 - design.exact.alpha).toBeCloseTo(0.97066, 4); // reference-values CV-17 [C]
+    expect(1 - design.exact.alpha).toBeCloseTo(0.97066, 4); // normal SPRT by the Fredholm integral equation (computed independently)
     expect(design.boundaries.slope).toBe(0.5);
     expect(design.limits[0]).toEqual({ n: 1, accept: expect.any(Number), reject: expect.any(Number) });
     expect(Object.keys(design)).toEqual(expect.arrayContaining(['boundaries', 'kl', 'wald', 'exact', 'curve', 'limits', 'corrected']));
   });
 
-  it('plans a lifetime model in the spec time unit: CV-15 accept time 4.3944 theta1 at zero failures', async () => {
+  it('plans a lifetime model in the spec time unit: Epstein and Sobel 1955 lines (computed independently) accept time 4.3944 theta1 at zero failures', async () => {
     const { code, stdout } = await runCli(['plan', ...lifetime, '--max-failures', '12', '--points', '2', '--json']);
     expect(code).toBe(0);
     const design = JSON.parse(stdout);
-    expect(design.boundaries.acceptTimeAtZero).toBeCloseTo(4394.4, 1); // reference-values CV-15 [C], theta1 = 1000
+    expect(design.boundaries.acceptTimeAtZero).toBeCloseTo(4394.4, 1); // Epstein and Sobel 1955 lines (computed independently), theta1 = 1000
     expect(design.maxFailures).toBe(12);
     expect(design.limits.at(-1).failures).toBe(12);
   });
@@ -40,12 +40,21 @@ describe('tallyline plan and replay for measurement, lifetime and graded models'
     // LLR after 3 values: 1 x (5.5 - 3 x 0.5) = 4 >= ln 18 = 2.89 (after 2: 2.3, continue).
     expect(JSON.parse(values.stdout)).toMatchObject({ decision: 'reject', n: 3 });
     const times = await runCli(['replay', ...lifetime, '--results', '-', '--json'], { input: 'time 3000\nfail\nfail 3500\ntime 20000\nfail\n' });
-    // Accept line after 2 failures: 4394.4 + 2 x 1386.3 = 7167 (CV-15 form [C]); the test decides there.
+    // Accept line after 2 failures: 4394.4 + 2 x 1386.3 = 7167 (Epstein and Sobel 1955 lines (computed independently) form); the test decides there.
     const lifetimeResult = JSON.parse(times.stdout);
     expect(lifetimeResult).toMatchObject({ decision: 'accept', failures: 2 });
     expect(lifetimeResult.time).toBeCloseTo(7167.0, 0);
     const classes = await runCli(['replay', ...graded, '--results', '-', '--json'], { input: 'major\n2\nMAJOR\nminor\n' });
     expect(JSON.parse(classes.stdout)).toMatchObject({ decision: 'reject', n: 3, counts: [0, 0, 3] });
+  });
+
+  it('replays the same measured values in two orders to the same decision when their sum lies on the truncation line', async () => {
+    const flags = ['--model', 'measurement', '--mu0', '10', '--mu1', '11', '--sigma', '1', '--alpha', '0.1', '--beta', '0.1', '--truncate', '3'];
+    for (const input of ['10.3\n10.4\n10.8\n', '10.3\n10.8\n10.4\n']) {
+      const replayed = await runCli(['replay', ...flags, '--results', '-', '--json'], { input });
+      // 10.3 + 10.4 + 10.8 = 31.5 = 3 x 10.5 exactly: LLR 0, accepted at the truncation (hand computation).
+      expect(JSON.parse(replayed.stdout)).toMatchObject({ decision: 'accept', n: 3, rule: 'accept at truncation' });
+    }
   });
 
   const badCases: Array<[string, string[], RegExp]> = [

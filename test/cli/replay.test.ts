@@ -15,7 +15,7 @@ function resultsFile(name: string, lines: string[]): string {
 
 describe('tallyline replay', () => {
   it('accepts after 24 passing items in the NIST plan and ignores what follows the decision', async () => {
-    // NIST §6.2.6 [V]: acceptance first possible at n = 24 with 0 nonconforming.
+    // NIST §6.2.6 (first-hand): acceptance first possible at n = 24 with 0 nonconforming.
     const path = resultsFile('accept.txt', [...Array(24).fill('pass'), 'fail', 'fail', 'fail']);
     const { code, stdout } = await runCli(['replay', ...nistFlags, '--results', path, '--json']);
     expect(code).toBe(0);
@@ -25,7 +25,7 @@ describe('tallyline replay', () => {
   });
 
   it('rejects at the second nonconforming item among the first 19, reading 0/1 and skipping blanks and comments', async () => {
-    // reference-values CV-02 [C]: rejection number 2 for n = 2..19.
+    // NIST/SEMATECH e-Handbook §6.2.6 (first-hand): rejection number 2 for n = 2..19.
     const path = resultsFile('reject.txt', ['# lot 7', '0', '', '1', '0', '1', '0']);
     const { code, stdout } = await runCli(['replay', ...nistFlags, '--results', path, '--json']);
     expect(code).toBe(0);
@@ -48,7 +48,7 @@ describe('tallyline replay', () => {
   });
 
   it('replays counts per unit for the count model and prints a readable table without --json', async () => {
-    // CV-14 lines [C] for lambda 1 -> 2: Re(1) = ceil(1.4427 + 3.1699) = 5.
+    // Poisson SPRT lines and exact recursion (computed independently; no published example) lines for lambda 1 -> 2: Re(1) = ceil(1.4427 + 3.1699) = 5.
     const path = resultsFile('counts.txt', ['2', '5']);
     const { code, stdout } = await runCli([
       'replay', '--model', 'count', '--lambda0', '1', '--lambda1', '2', '--alpha', '0.1', '--beta', '0.1', '--results', path,

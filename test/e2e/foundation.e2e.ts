@@ -5,8 +5,8 @@ test.use({ hostSharing: 'file' });
 
 // Check values: NIST/SEMATECH e-Handbook of Statistical Methods §6.2.6 "What is a Sequential
 // Sampling Plan?" — p1 = 0.01, alpha = 0.05, p2 = 0.10, beta = 0.10 gives h1 = 0.939,
-// h2 = 1.205, s = 0.0397 (inputs [M], printed results reproduced by computation [C];
-// reference-values CV-02/03). KL values: reference-values CV-05 [C].
+// h2 = 1.205, s = 0.0397 (inputs (from memory), printed results reproduced by computation;
+// NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). KL values: Wald 1947 OC/ASN formulas (computed independently).
 
 test('the plan place shows Wald limits computed on the main side for the NIST example', async ({ page, host }) => {
   await page.goto(host.url);

@@ -1,14 +1,14 @@
 import type { Page } from '@playwright/test';
-import { liveState, type LiveState, type PlanSpec } from '../../src-main/engine/index.js';
+import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 example plan: p0 1 %, p1 10 %, alpha 5 %, beta 10 %
-// (inputs [M], reference-values CV-02). Expected screen values are the engine's own liveState,
+// (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
 // computed here on the same (n, total) as the run: the screen must show what the engine says.
-const spec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 
 /** Saves a plan under a new source through the plan channel, as the Plan place would. */
-async function savePlan(page: Page, host: RunningHost, planSpec: PlanSpec, name: string): Promise<void> {
+async function savePlan(page: Page, host: RunningHost, planSpec: LinearCountSpec, name: string): Promise<void> {
   const response = await page.request.post(`${host.origin}/api/plan.save`, {
     headers: { authorization: `Bearer ${host.token}` },
     data: { name, source: { name: 'Acme Castings', kind: 'supplier' }, spec: planSpec },
@@ -29,7 +29,7 @@ async function startRun(page: Page, host: RunningHost, lot: string): Promise<voi
 }
 
 /** The banner and the next numbers show exactly the engine's live state. */
-async function expectEngineNumbers(page: Page, live: LiveState): Promise<void> {
+async function expectEngineNumbers(page: Page, live: LinearCountLiveState): Promise<void> {
   const heading = { continue: 'Continue inspecting', accept: 'Accept the lot', reject: 'Reject the lot' }[live.decision];
   await expect(page.getByTestId('state-banner')).toHaveAttribute('data-decision', live.decision);
   await expect(page.getByTestId('state-heading')).toHaveText(heading);
@@ -55,7 +55,7 @@ async function screenshotBothThemes(page: Page, name: string): Promise<void> {
 test('a run from a saved plan takes results by keyboard and click, voids one, decides, and reloads exactly as it was', async ({ page, host }) => {
   await savePlan(page, host, spec, 'Incoming housings');
   await startRun(page, host, 'L-2041');
-  await expectEngineNumbers(page, liveState(spec, 0, 0));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 0, 0));
 
   // A scan ends with Enter; the hyphen of the id is typed, not taken as a result.
   const itemId = page.getByTestId('item-id');
@@ -71,7 +71,7 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   // A mis-keyed nonconforming result by the number pad, voided with a reason.
   await page.keyboard.press('NumpadSubtract');
   await expect(page.getByTestId('entry-row')).toHaveCount(11);
-  await expectEngineNumbers(page, liveState(spec, 11, 1));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 11, 1));
   await page.getByTestId('void-open').click();
   await page.getByTestId('void-confirm').click();
   await expect(page.getByTestId('void-missing')).toBeVisible();
@@ -81,7 +81,7 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   await expect(voided).toHaveCount(1);
   await expect(voided).toContainText('voided: keyed by mistake, item passed');
   await expect(voided.locator('.struck').first()).toHaveCSS('text-decoration-line', 'line-through');
-  await expectEngineNumbers(page, liveState(spec, 10, 0));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 10, 0));
 
   // A nonconforming item by click, with its category; the click leaves the focus in the id field.
   await expect(itemId).toBeFocused();
@@ -91,7 +91,7 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   await expect(page.getByTestId('entry-row')).toHaveCount(12);
   await expect(page.getByTestId('entry-row').first()).toContainText('burr');
   await expect(itemId).toBeFocused();
-  const midRun = liveState(spec, 11, 1);
+  const midRun = linearCountLiveState(spec, 11, 1);
   await expectEngineNumbers(page, midRun);
   await expect(page.getByTestId('evidence-counts').locator('canvas')).toHaveCount(1);
   await expect(page.getByTestId('evidence-llr').locator('canvas')).toHaveCount(1);
@@ -101,7 +101,7 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   await itemId.focus();
   const toAccept = midRun.itemsToEarliestAccept as number;
   for (let i = 0; i < toAccept; i++) await page.keyboard.press('NumpadAdd');
-  const decided = liveState(spec, 11 + toAccept, 1);
+  const decided = linearCountLiveState(spec, 11 + toAccept, 1);
   expect(decided.decision).toBe('accept');
   await expect(page.getByTestId('decided')).toBeVisible();
   await expect(page.getByTestId('entry-row')).toHaveCount(12 + toAccept);
@@ -131,7 +131,7 @@ test('more entries after the decision need a recorded reason', async ({ page, ho
   await startRun(page, host, 'L-2042');
   await page.keyboard.press('NumpadSubtract');
   await page.keyboard.press('NumpadSubtract');
-  const rejected = liveState(spec, 2, 2);
+  const rejected = linearCountLiveState(spec, 2, 2);
   expect(rejected.decision).toBe('reject');
   await expectEngineNumbers(page, rejected);
   await expect(page.getByTestId('record-pass')).toHaveCount(0);
@@ -142,7 +142,7 @@ test('more entries after the decision need a recorded reason', async ({ page, ho
   await page.getByTestId('record-pass').click();
   await expect(page.getByTestId('entry-row')).toHaveCount(3);
   await expect(page.getByTestId('decided')).toBeVisible();
-  await expectEngineNumbers(page, liveState(spec, 3, 2));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 3, 2));
 });
 
 test('an unfinished run reopens from the list where it stopped', async ({ page, host }) => {
@@ -154,7 +154,7 @@ test('an unfinished run reopens from the list where it stopped', async ({ page, 
   await expect(page.locator('[data-testid="open-run"]', { hasText: 'L-2043' })).toBeVisible();
   await page.screenshot({ path: 'test/artifacts/inspect-start-and-runs-light.png' });
   await page.locator('[data-testid="open-run"]', { hasText: 'L-2043' }).click();
-  await expectEngineNumbers(page, liveState(spec, 5, 0));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 5, 0));
   // On the main keys, minus is part of an id until the scan ends with Enter, then it records.
   await page.keyboard.type('SN-9');
   await page.keyboard.press('Enter');
@@ -162,7 +162,7 @@ test('an unfinished run reopens from the list where it stopped', async ({ page, 
   const sixth = page.locator('[data-testid="entry-row"][data-seq="6"]');
   await expect(sixth).toContainText('SN-9');
   await expect(sixth).toContainText('nonconforming');
-  await expectEngineNumbers(page, liveState(spec, 6, 1));
+  await expectEngineNumbers(page, linearCountLiveState(spec, 6, 1));
 });
 
 test('bad input gets a message naming what is wrong and keeps what was typed', async ({ page, host }) => {
@@ -180,7 +180,7 @@ test('bad input gets a message naming what is wrong and keeps what was typed', a
 });
 
 test('a count plan takes a number of nonconformities per unit', async ({ page, host }) => {
-  const countSpec: PlanSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
+  const countSpec: LinearCountSpec = { model: 'count', lambda0: 0.1, lambda1: 0.5, alpha: 0.05, beta: 0.05 };
   await savePlan(page, host, countSpec, 'Paint defects per panel');
   await startRun(page, host, 'P-77');
   await page.getByTestId('count').fill('x2');
@@ -191,5 +191,5 @@ test('a count plan takes a number of nonconformities per unit', async ({ page, h
   await page.getByTestId('count').press('Enter');
   await page.keyboard.press('NumpadAdd');
   await expect(page.getByTestId('entry-row')).toHaveCount(2);
-  await expectEngineNumbers(page, liveState(countSpec, 2, 2));
+  await expectEngineNumbers(page, linearCountLiveState(countSpec, 2, 2));
 });

@@ -3,8 +3,8 @@ import type { APIRequestContext, Page } from '@playwright/test';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 
 // Check values: NIST/SEMATECH e-Handbook of Statistical Methods §6.2.6 — p1 = 0.01, alpha = 0.05,
-// p2 = 0.10, beta = 0.10 gives h1 = 0.939, h2 = 1.205, s = 0.0397 (reference-values CV-02/03);
-// the single sampling plan meeting the same two OC points is n = 52, c = 2 (CV-08). Exact figures
+// p2 = 0.10, beta = 0.10 gives h1 = 0.939, h2 = 1.205, s = 0.0397 (NIST/SEMATECH e-Handbook §6.2.6 (first-hand));
+// the single sampling plan meeting the same two OC points is n = 52, c = 2 (Montgomery §15.2.3 (first-hand), minimal plans computed independently). Exact figures
 // are not typed in here: they are asked of the host's own plan.design channel, i.e. the engine.
 
 const nist = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 } as const;
@@ -186,7 +186,7 @@ test('the table copies as CSV', async ({ page, host, context }) => {
   const text = await page.evaluate(() => navigator.clipboard.readText());
   const lines = text.split('\r\n');
   expect(lines[0]).toBe('Items inspected,Accept if nonconforming items at most,Reject if nonconforming items at least');
-  // NIST/SEMATECH e-Handbook §6.2.6 table marks n = 1 "x" for both (reference-values CV-02: the
+  // NIST/SEMATECH e-Handbook §6.2.6 table marks n = 1 "x" for both (NIST/SEMATECH e-Handbook §6.2.6 (first-hand): the
   // rejection number ceil(0.0397 + 1.205) = 2 exceeds one item); from n = 2 rejection is at 2.
   expect(lines[1]).toBe('1,,');
   expect(lines[2]).toBe('2,,2');

@@ -1,10 +1,10 @@
 import type { APIRequestContext } from '@playwright/test';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../src-main/engine/index.js';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
 
 // p0 1 %, p1 10 %, 5 % risks, untruncated: 31 passes accept, 2 nonconforming in the first 2 items reject
 // (the engine's decide; the same plan as test/record/fromRunFixtures.ts). All names below are invented.
-const spec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
+const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
 
 async function call<T>(request: APIRequestContext, host: RunningHost, channel: string, data: unknown): Promise<T> {
   const response = await request.post(`${host.origin}/api/${channel}`, { headers: { authorization: `Bearer ${host.token}` }, data });

@@ -4,7 +4,7 @@ import { createExactEvaluator, createPlanEvaluator, waldBoundaries } from '../..
 import { enumerateBernoulli, enumeratePoisson } from './bruteForce.js';
 import { linesOf, montgomery, nist } from './planFixtures.js';
 
-// Suggested tolerances of reference-values §9: 1e-4 absolute for probabilities, 1e-3 relative for ASN.
+// Suggested tolerances of common practice, no source: 1e-4 absolute for probabilities, 1e-3 relative for ASN.
 function expectPoint(actual: { accept: number; asn: number }, oc: number, asn: number): void {
   expect(Math.abs(actual.accept - oc)).toBeLessThan(1e-4);
   expect(Math.abs(actual.asn - asn) / asn).toBeLessThan(1e-3);
@@ -12,7 +12,7 @@ function expectPoint(actual: { accept: number; asn: number }, oc: number, asn: n
 
 describe('exact OC and ASN of the untruncated NIST plan', () => {
   const evaluator = createExactEvaluator(linesOf(nist), 'bernoulli');
-  // reference-values CV-06, computed [C] (DP checked there by Monte Carlo with 4e5 runs).
+  // exact recursion over the integer lines (computed independently, checked by simulation) (DP checked there by Monte Carlo with 4e5 runs).
   const table: Array<[number, number, number]> = [
     [0.005, 0.9951, 27.09],
     [0.01, 0.97795, 30.213],
@@ -31,32 +31,32 @@ describe('exact OC and ASN of the untruncated NIST plan', () => {
   });
 
   it('at p = s has OC 0.61863 and ASN 39.047', () => {
-    // reference-values CV-06, computed [C].
+    // exact recursion over the integer lines (computed independently, checked by simulation).
     expectPoint(evaluator.evaluate(waldBoundaries(nist).slope), 0.61863, 39.047);
   });
 
   it('has true risks 0.0220 and 0.0996, inside Wald bounds', () => {
-    // reference-values CV-06 and §7, computed [C]: alpha' = 0.0220, beta' = 0.0996.
+    // exact recursion over the integer lines (computed independently, checked by simulation): alpha' = 0.0220, beta' = 0.0996.
     expect(evaluator.evaluate(0.01).reject).toBeCloseTo(0.022, 4);
     expect(evaluator.evaluate(0.1).accept).toBeCloseTo(0.0996, 4);
   });
 });
 
 describe('exact OC and ASN of truncated plans', () => {
-  it('matches CV-06 for the NIST plan truncated at 156 = 3 x 52', () => {
+  it('matches exact recursion over the integer lines (computed independently, checked by simulation) for the NIST plan truncated at 156 = 3 x 52', () => {
     const evaluator = createExactEvaluator(linesOf(nist, 156), 'bernoulli');
-    // reference-values CV-06, computed [C].
+    // exact recursion over the integer lines (computed independently, checked by simulation).
     expectPoint(evaluator.evaluate(0.01), 0.97794, 30.209);
     expectPoint(evaluator.evaluate(waldBoundaries(nist).slope), 0.61945, 38.814);
     expectPoint(evaluator.evaluate(0.1), 0.09964, 22.367);
     expect(evaluator.evaluate(0.03).undecided).toBe(0);
   });
 
-  it('matches CV-06 for the Montgomery plan, untruncated and truncated at 330', () => {
+  it('matches exact recursion over the integer lines (computed independently, checked by simulation) for the Montgomery plan, untruncated and truncated at 330', () => {
     const untruncated = createExactEvaluator(linesOf(montgomery), 'bernoulli');
     const truncated = createExactEvaluator(linesOf(montgomery, 330), 'bernoulli');
     const s = waldBoundaries(montgomery).slope;
-    // reference-values CV-06, computed [C].
+    // exact recursion over the integer lines (computed independently, checked by simulation).
     expectPoint(untruncated.evaluate(0.01), 0.97142, 63.584);
     expectPoint(untruncated.evaluate(s), 0.60379, 86.435);
     expectPoint(untruncated.evaluate(0.06), 0.09892, 50.508);
@@ -67,8 +67,8 @@ describe('exact OC and ASN of truncated plans', () => {
 });
 
 describe('exact OC and ASN for count data', () => {
-  it('matches CV-14 for lambda 1 -> 2 and 0.5 -> 1', () => {
-    // reference-values CV-14, computed [C].
+  it('matches Poisson SPRT lines and exact recursion (computed independently; no published example) for lambda 1 -> 2 and 0.5 -> 1', () => {
+    // Poisson SPRT lines and exact recursion (computed independently; no published example).
     const first = createPlanEvaluator({ model: 'count', lambda0: 1, lambda1: 2, alpha: 0.1, beta: 0.1 });
     expectPoint(first.evaluate(1), 0.94324, 7.3736);
     expectPoint(first.evaluate(2), 0.07592, 6.5947);
@@ -149,6 +149,6 @@ describe('the evaluator as a hot loop', () => {
     const mean = probabilities.reduce((a, b, n) => a + n * b, 0);
     expect(sum).toBeCloseTo(1 - point.undecided, 13);
     expect(mean).toBeCloseTo(point.asn, 8);
-    expect(probabilities[1]).toBe(0); // NIST: neither decision is possible at n = 1 (CV-02 table)
+    expect(probabilities[1]).toBe(0); // NIST: neither decision is possible at n = 1 (NIST/SEMATECH e-Handbook §6.2.6 (first-hand) table)
   });
 });

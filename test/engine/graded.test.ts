@@ -2,8 +2,8 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designGradedPlan, gradedLiveState, gradedPlan } from '../../src-main/engine/index.js';
 import type { GradedSpec } from '../../src-main/engine/index.js';
-import { classCountRecursion } from '../../src-main/engine/graded/classCountExact.js';
-import { simulateGradedSprt } from '../../src-main/engine/graded/gradedSimulation.js';
+import { classCountRecursion } from '../../src-main/engine/models/graded/classCountRecursion.js';
+import { simulateGradedSprt } from '../../src-main/engine/models/graded/gradedSimulation.js';
 
 const threeClass: GradedSpec = {
   model: 'graded', classes: ['conforming', 'minor', 'major'], p0: [0.9, 0.08, 0.02], p1: [0.75, 0.17, 0.08], alpha: 0.05, beta: 0.1,
@@ -32,16 +32,16 @@ function bruteForce(weights: Float64Array, q: number[], lnA: number, lnB: number
 }
 
 describe('graded model (k classes)', () => {
-  it('with two classes gives the NIST pass/fail lines h1 0.939, h2 1.205, slope 0.0397 and CV-06 exact OC/ASN', () => {
+  it('with two classes gives the NIST pass/fail lines h1 0.939, h2 1.205, slope 0.0397 and exact recursion over the integer lines (computed independently, checked by simulation) exact OC/ASN', () => {
     const design = designGradedPlan(
       { model: 'graded', classes: ['pass', 'fail'], p0: [0.99, 0.01], p1: [0.9, 0.1], alpha: 0.05, beta: 0.1, truncation: 156 },
       { curvePoints: 2 },
     );
-    // NIST/SEMATECH e-Handbook §6.2.6 printed values [M], recomputed in reference-values CV-02 [C].
+    // NIST/SEMATECH e-Handbook §6.2.6 printed values (from memory), recomputed in NIST/SEMATECH e-Handbook §6.2.6 (first-hand).
     expect(design.boundaries.h1).toBeCloseTo(0.939, 3);
     expect(design.boundaries.h2).toBeCloseTo(1.205, 3);
     expect(design.boundaries.slope).toBeCloseTo(0.0397, 4);
-    // reference-values CV-06 [C], truncated at 156: OC 0.97794, ASN 30.209 at p = 0.01; 0.09964, 22.367 at p = 0.10.
+    // exact recursion over the integer lines (computed independently, checked by simulation), truncated at 156: OC 0.97794, ASN 30.209 at p = 0.01; 0.09964, 22.367 at p = 0.10.
     expect(1 - (design.exact?.alpha ?? NaN)).toBeCloseTo(0.97794, 4);
     expect(design.exact?.asnH0).toBeCloseTo(30.209, 2);
     expect(design.exact?.beta).toBeCloseTo(0.09964, 4);
@@ -73,7 +73,7 @@ describe('graded model (k classes)', () => {
     );
   });
 
-  it('exact OC/ASN agree with a seeded simulation within 4 standard errors, and Wald bounds hold (Wald 1947 §3, [M])', () => {
+  it('exact OC/ASN agree with a seeded simulation within 4 standard errors, and Wald bounds hold (Wald 1947 §3, (from memory))', () => {
     const design = designGradedPlan({ ...threeClass, truncation: 120 }, { curvePoints: 2 });
     const plan = gradedPlan({ ...threeClass, truncation: 120 });
     const simulated = simulateGradedSprt(plan.weights, Float64Array.from(threeClass.p1), plan.lnA, plan.lnB, 120, 40000, 11);
@@ -90,7 +90,7 @@ describe('graded model (k classes)', () => {
     );
     expect(design.exact).toBeNull();
     expect(design.simulated?.h0.acceptStandardError).toBeGreaterThan(0);
-    // Wald 1947 §3 bound [M]: beta' <= beta/(1 - alpha), with simulation noise of 4 standard errors.
+    // Wald 1947 §3 bound (from memory): beta' <= beta/(1 - alpha), with simulation noise of 4 standard errors.
     expect(design.simulated?.h1.accept).toBeLessThan(0.1 / 0.95 + 4 * (design.simulated?.h1.acceptStandardError ?? 0));
   });
 
@@ -101,7 +101,7 @@ describe('graded model (k classes)', () => {
     for (let i = 1; i < design.curve.length; i++) expect(design.curve[i].ocWald).toBeLessThan(design.curve[i - 1].ocWald);
   });
 
-  it('liveState from the counts per class matches the design at the start and decides on the lines', () => {
+  it('linearCountLiveState from the counts per class matches the design at the start and decides on the lines', () => {
     const design = designGradedPlan({ ...threeClass, truncation: 100 }, { curvePoints: 2 });
     const start = gradedLiveState({ ...threeClass, truncation: 100 }, [0, 0, 0]);
     expect(start.probabilityAcceptH1).toBeCloseTo(design.exact?.beta ?? NaN, 12);

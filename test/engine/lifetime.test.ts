@@ -53,33 +53,52 @@ function simulate(s: LifetimeSpec, theta: number, runs: number, seed: number) {
 }
 
 describe('lifetime model (exponential MTBF)', () => {
-  // reference-values CV-15 [C]; times in units of theta1.
+  // Epstein and Sobel 1955 lines (computed independently); times in units of theta1.
   it.each([
     [1.5, 0.1, 6.5917, 1.2164, 6],
     [2, 0.1, 4.3944, 1.3863, 4],
     [3, 0.1, 3.2958, 1.6479, 3],
     [2, 0.2, 2.7726, 1.3863, 3],
-  ])('reproduces the CV-15 lines for d = %s, alpha = beta = %s', (d, risk, acceptAtZero, slope, firstReject) => {
+  ])('reproduces the Epstein and Sobel 1955 lines (computed independently) lines for d = %s, alpha = beta = %s', (d, risk, acceptAtZero, slope, firstReject) => {
     const b = lifetimeBoundaries(lifetimePlan(spec(d, risk)));
     expect(b.acceptTimeAtZero).toBeCloseTo(acceptAtZero, 4);
     expect(b.timePerFailure).toBeCloseTo(slope, 4);
     expect(b.firstRejectFailures).toBe(firstReject);
   });
 
+  it('lists no reject time past the maximum test time and ends the limits table at the failure count that always rejects', () => {
+    // d = 2 in unit-hours (theta0 1000, theta1 500), alpha = beta = 0.1, T = 1000: reject time at r failures is
+    // 693.1 r - 2197 (hand computation), so failure 4 rejects until 575.4 and failure 5 at any time up to 1000.
+    const design = designLifetimePlan({ model: 'lifetime', theta0: 1000, theta1: 500, alpha: 0.1, beta: 0.1, maxTime: 1000 });
+    expect(design.limits.map((row) => row.failures)).toEqual([0, 1, 2, 3, 4, 5]);
+    for (const row of design.limits) {
+      if (row.rejectTime !== null) expect(row.rejectTime).toBeLessThanOrEqual(1000);
+      if (row.acceptTime !== null) expect(row.acceptTime).toBeLessThanOrEqual(1000);
+    }
+    expect(design.limits[4].rejectTime).toBeCloseTo(575.4, 1);
+    expect(design.limits[5].rejectTime).toBe(1000);
+  });
+
+  it('states the truncation rule with "at most 1 failure" in the singular', () => {
+    // Accept at T = 1000 iff r <= floor(1000 x (1/500 - 1/1000)/ln 2) = floor(1.44) = 1 (hand computation).
+    const design = designLifetimePlan({ model: 'lifetime', theta0: 1000, theta1: 500, alpha: 0.1, beta: 0.1, maxTime: 1000 });
+    expect(design.truncationRule).toContain('accept with at most 1 failure (LLR <= 0)');
+  });
+
   it('matches the MIL-HDBK-781A PRST accept times at zero failures (from memory, low confidence: +-0.05 theta1)', () => {
-    // reference-values CV-15 [M]: plans I-D, III-D, V-D (10/10 %, d = 1.5, 2, 3) accept at about 6.6, 4.40, 3.30.
+    // Epstein and Sobel 1955 lines (computed independently) (from memory): plans I-D, III-D, V-D (10/10 %, d = 1.5, 2, 3) accept at about 6.6, 4.40, 3.30.
     expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(1.5, 0.1))).acceptTimeAtZero - 6.6)).toBeLessThan(0.05);
     expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(2, 0.1))).acceptTimeAtZero - 4.4)).toBeLessThan(0.05);
     expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(3, 0.1))).acceptTimeAtZero - 3.3)).toBeLessThan(0.05);
   });
 
-  // reference-values CV-16 [C] (grid + Richardson, stated tolerance +-2e-4 in P(accept), +-0.02 theta1 in E[T]).
+  // exact recursion over failures (computed independently by a time grid) (grid + Richardson, stated tolerance +-2e-4 in P(accept), +-0.02 theta1 in E[T]).
   it.each([
     [2, 0.1, 0.9207, 11.94, 11.457, 0.1023, 10.18, 9.101],
     [1.5, 0.1, 0.9128, 28.6, 27.891, 0.1014, 26.02, 24.369],
     [3, 0.1, 0.9313, 6.23, 5.85, 0.1035, 4.875, 4.069],
     [2, 0.2, 0.8439, 5.99, 5.421, 0.211, 5.16, 4.306],
-  ])('reproduces CV-16 exact and Wald OC and E[T] for d = %s, alpha = beta = %s', (d, risk, oc0, time0, waldTime0, oc1, time1, waldTime1) => {
+  ])('reproduces exact recursion over failures (computed independently by a time grid) exact and Wald OC and E[T] for d = %s, alpha = beta = %s', (d, risk, oc0, time0, waldTime0, oc1, time1, waldTime1) => {
     const design = designLifetimePlan(spec(d, risk), { curvePoints: 2 });
     expect(Math.abs(1 - design.exact.alpha - oc0)).toBeLessThanOrEqual(2e-4);
     expect(Math.abs(design.exact.expectedTimeH0 - time0)).toBeLessThanOrEqual(0.02);
@@ -90,7 +109,7 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(design.exact.undecided).toBeLessThan(1e-11);
   });
 
-  it('gives the CV-16 KL rates per theta1 of test time: ln d + 1/d - 1 and (d - 1 - ln d)/d', () => {
+  it('gives the exact recursion over failures (computed independently by a time grid) KL rates per theta1 of test time: ln d + 1/d - 1 and (d - 1 - ln d)/d', () => {
     const design = designLifetimePlan(spec(2, 0.1), { curvePoints: 2 });
     expect(design.kl.h1h0).toBeCloseTo(0.19315, 5);
     expect(design.kl.h0h1).toBeCloseTo(0.15343, 5);
@@ -107,7 +126,7 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(design.exact.undecided).toBeLessThan(1e-12);
   });
 
-  it('reproduces the recomputed true risks of the MIL-HDBK-781A fixed-duration plans (CV-12: table [M], risks [C])', () => {
+  it('reproduces the recomputed true risks of the MIL-HDBK-781A fixed-duration plans (MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF): table (from memory), risks)', () => {
     // plan, d, T (theta1), accept <= c, alpha' %, beta' %.
     const plans: Array<[string, number, number, number, number, number]> = [
       ['IX-D', 1.5, 45.0, 36, 11.96, 9.94],
@@ -134,7 +153,7 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(fixedDurationRisks(2, 1, time * 0.999, acceptFailures).beta).toBeGreaterThan(0.1);
   });
 
-  it('liveState at (T, r) continues the same test: from (0, 0) it equals the design, and it is memoryless', () => {
+  it('linearCountLiveState at (T, r) continues the same test: from (0, 0) it equals the design, and it is memoryless', () => {
     const s = spec(2, 0.1);
     const design = designLifetimePlan(s, { curvePoints: 2 });
     const start = lifetimeLiveState(s, 0, 0);

@@ -44,8 +44,20 @@ function simulate(plan: ReturnType<typeof measurementPlan>, mu: number, runs: nu
 }
 
 describe('measurement model (normal mean, sigma known)', () => {
-  // reference-values CV-17 [C]: exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
-  // probabilities and 1e-3 relative for ASN, as the notes suggest for [C] values.
+  it('decides the same on the same values in any order when their sum lies exactly on the truncation line', () => {
+    const plan = measurementPlan({ model: 'measurement', mu0: 10, mu1: 11, sigma: 1, alpha: 0.1, beta: 0.1, truncation: 3 });
+    // The decimals 10.3, 10.4, 10.8 sum to exactly 31.5 = 3 x (10 + 11)/2: LLR 0 accepts at the truncation.
+    const oneOrder = 10.3 + 10.4 + 10.8;
+    const otherOrder = 10.3 + 10.8 + 10.4;
+    expect(oneOrder).not.toBe(otherOrder); // binary addition depends on the order
+    expect(decideMeasurement(plan, 3, oneOrder)).toMatchObject({ decision: 'accept', rule: 'accept at truncation' });
+    expect(decideMeasurement(plan, 3, otherOrder)).toMatchObject({ decision: 'accept', rule: 'accept at truncation' });
+    // Well off the line, the order-free guard changes nothing: 31.5 + 1e-9 is above it.
+    expect(decideMeasurement(plan, 3, 31.5 + 1e-9).decision).toBe('reject');
+  });
+
+  // normal SPRT by the Fredholm integral equation (computed independently): exact (Fredholm) and Siegmund-corrected columns; tolerances 1e-4 for
+  // probabilities and 1e-3 relative for ASN, as the notes suggest for values.
   const rows: Array<[number, number, number, number, number, number, number, number]> = [
     // alpha, beta, delta, theta, exact OC, exact ASN, corrected OC, corrected ASN
     [0.05, 0.1, 1, 0, 0.97066, 5.565, 0.97075, 5.299],
@@ -56,7 +68,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     [0.05, 0.05, 0.5, 0, 0.96214, 24.186, 0.96216, 23.927],
     [0.01, 0.01, 0.5, 0, 0.9925, 38.766, 0.99251, 38.506],
   ];
-  it.each(rows)('reproduces CV-17 exact and Siegmund-corrected OC/ASN (alpha %s, beta %s, delta %s, mu %s)', (alpha, beta, delta, mu, oc, asn, ocCorrected, asnCorrected) => {
+  it.each(rows)('reproduces normal SPRT by the Fredholm integral equation (computed independently) exact and Siegmund-corrected OC/ASN (alpha %s, beta %s, delta %s, mu %s)', (alpha, beta, delta, mu, oc, asn, ocCorrected, asnCorrected) => {
     const design = designMeasurementPlan(spec(alpha, beta, delta), { curvePoints: 5 }); // mu = -d/2, 0, d/2, d, 3d/2
     const point = design.curve.find((p) => Math.abs(p.theta - mu) < 1e-12) ?? design.curve[0];
     expect(point.theta).toBeCloseTo(mu, 12);
@@ -66,7 +78,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     expect(point.asnCorrected / asnCorrected).toBeCloseTo(1, 3);
   });
 
-  it('checks the CV-17 exact OC at delta = 1 by a seeded simulation (CV-17 quotes 0.97133 +- 0.00026 from 4e5 runs)', () => {
+  it('checks the normal SPRT by the Fredholm integral equation (computed independently) exact OC at delta = 1 by a seeded simulation (normal SPRT by the Fredholm integral equation (computed independently) quotes 0.97133 +- 0.00026 from 4e5 runs)', () => {
     const plan = measurementPlan(spec(0.05, 0.05, 1));
     const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
     const simulated = simulate(plan, 0, 60000, 17);
@@ -74,21 +86,21 @@ describe('measurement model (normal mean, sigma known)', () => {
     expect(simulated.asn / design.exact.asnH0).toBeCloseTo(1, 1);
   });
 
-  it('gives the fixed-sample n of CV-17/19: ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
-    // reference-values CV-17 "fixed n" column [C].
+  it('gives the fixed-sample n of normal SPRT by the Fredholm integral equation (computed independently) and Wald 1947 ASN against the fixed-sample n (computed independently): ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
+    // normal SPRT by the Fredholm integral equation (computed independently) "fixed n" column.
     expect(designMeasurementPlan(spec(0.05, 0.1, 1), { curvePoints: 2 }).single.exactN).toBeCloseTo(8.564, 3);
     expect(designMeasurementPlan(spec(0.01, 0.01, 0.5), { curvePoints: 2 }).single.exactN).toBeCloseTo(86.59, 2);
-    // CV-19 [C]: Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
+    // Wald 1947 ASN against the fixed-sample n (computed independently): Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
     const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
     expect(design.wald.asnH0 / design.single.exactN).toBeCloseTo(0.4897, 4);
   });
 
-  it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (CV-18, computed)', () => {
+  it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (Siegmund 1985 ch. 3 (from memory; rho computed from zeta(1/2)), computed)', () => {
     expect(SIEGMUND_RHO).toBeCloseTo(0.5826, 4);
   });
 
   it('with the overshoot correction, the exact risks come to nominal (Fredholm, and a seeded simulation)', () => {
-    // Common practice, no source: the corrected limits aim at the nominal risks; Wald's plain limits give 0.029 (CV-17).
+    // Common practice, no source: the corrected limits aim at the nominal risks; Wald's plain limits give 0.029 (normal SPRT by the Fredholm integral equation (computed independently)).
     const corrected = spec(0.05, 0.05, 1, { overshootCorrection: true });
     const design = designMeasurementPlan(corrected, { curvePoints: 2 });
     expect(Math.abs(design.exact.alpha - 0.05)).toBeLessThan(0.003);
@@ -135,7 +147,7 @@ describe('measurement model (normal mean, sigma known)', () => {
     for (const p of [1e-6, 0.01, 0.3, 0.9, 0.999]) expect(normalCdf(normalQuantile(p))).toBeCloseTo(p, 14);
   });
 
-  it('liveState reads the evidence (n, sum): decision, next-value thresholds and the look-ahead', () => {
+  it('linearCountLiveState reads the evidence (n, sum): decision, next-value thresholds and the look-ahead', () => {
     const plain = spec(0.05, 0.1, 1);
     const start = measurementLiveState(plain, 0, 0);
     const design = designMeasurementPlan(plain, { curvePoints: 2 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkAnyPlanSpec, designAnyPlan, estimatePlanWork, PLAN_LIMITS, PlanParameterError } from '../../src-main/engine/index.js';
-import type { AnyPlanSpec } from '../../src-main/engine/index.js';
+import { checkPlanSpec, designPlan, estimatePlanWork, PLAN_LIMITS, PlanParameterError } from '../../src-main/engine/index.js';
+import type { PlanSpec } from '../../src-main/engine/index.js';
 import { unboundedSpecs } from './unboundedSpecs.js';
 
 function refusal(run: () => unknown): PlanParameterError {
@@ -18,33 +18,33 @@ function refusal(run: () => unknown): PlanParameterError {
 describe('the one spec check bounds the work of a design', () => {
   for (const { name, spec, parameter, message } of unboundedSpecs) {
     it(`refuses ${name}, naming ${parameter} and what is allowed`, { timeout: 5000 }, () => {
-      const checked = refusal(() => checkAnyPlanSpec(spec));
+      const checked = refusal(() => checkPlanSpec(spec));
       expect(checked.parameter).toBe(parameter);
       expect(checked.message).toMatch(message);
       expect(checked.message).not.toContain('\n');
-      // designAnyPlan runs the same check first, so it refuses the same way before computing anything.
-      expect(refusal(() => designAnyPlan(spec)).message).toBe(checked.message);
+      // designPlan runs the same check first, so it refuses the same way before computing anything.
+      expect(refusal(() => designPlan(spec)).message).toBe(checked.message);
     });
   }
 
   it('refuses p1 next to p0 with its message instead of a typed-array RangeError', { timeout: 5000 }, () => {
     for (const p1 of [0.010000001, 0.0100001, 0.010001]) {
-      const error = refusal(() => designAnyPlan({ model: 'passfail', p0: 0.01, p1, alpha: 0.05, beta: 0.1 }));
+      const error = refusal(() => designPlan({ model: 'passfail', p0: 0.01, p1, alpha: 0.05, beta: 0.1 }));
       expect(error.parameter).toBe('p1');
       expect(error.message).toMatch(/widen the gap/);
     }
   });
 
   it('refuses more curve points than the curves allow', () => {
-    const spec: AnyPlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
-    expect(refusal(() => checkAnyPlanSpec(spec, { curvePoints: PLAN_LIMITS.maxCurvePoints + 1 })).parameter).toBe('curvePoints');
+    const spec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
+    expect(refusal(() => checkPlanSpec(spec, { curvePoints: PLAN_LIMITS.maxCurvePoints + 1 })).parameter).toBe('curvePoints');
   });
 });
 
 describe('the limits leave the plans a real inspection needs', () => {
   // Inputs of the NIST/SEMATECH e-Handbook §6.2.6 example (p0 0.01, p1 0.10, alpha 0.05, beta 0.10), first-hand.
   const nist = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 } as const;
-  const allowed: Array<[string, AnyPlanSpec]> = [
+  const allowed: Array<[string, PlanSpec]> = [
     ['pass/fail truncated at the largest truncation', { ...nist, truncation: PLAN_LIMITS.maxTruncation }],
     ['pass/fail with p0 0.001 against p1 0.002, untruncated (about 12,500 items at worst)', { model: 'passfail', p0: 0.001, p1: 0.002, alpha: 0.05, beta: 0.05 }],
     ['pass/fail with p0 0.001 against p1 0.002 truncated at 20,000', { model: 'passfail', p0: 0.001, p1: 0.002, alpha: 0.05, beta: 0.05, truncation: 20_000 }],
@@ -59,13 +59,13 @@ describe('the limits leave the plans a real inspection needs', () => {
   ];
   for (const [name, spec] of allowed) {
     it(`accepts ${name}`, () => {
-      expect(() => checkAnyPlanSpec(spec)).not.toThrow();
+      expect(() => checkPlanSpec(spec)).not.toThrow();
       expect(estimatePlanWork(spec, 51).work).toBeLessThanOrEqual(PLAN_LIMITS.maxWork);
     });
   }
 
   it('designs a pass/fail plan truncated at the largest truncation, with one limits row per item', () => {
-    const design = designAnyPlan({ ...nist, truncation: PLAN_LIMITS.maxTruncation }, { curvePoints: 11 });
+    const design = designPlan({ ...nist, truncation: PLAN_LIMITS.maxTruncation }, { curvePoints: 11 });
     expect(design.model).toBe('passfail');
     expect(design.limits).toHaveLength(PLAN_LIMITS.maxTruncation);
   });

@@ -3,12 +3,12 @@ import { describe, expect, it } from 'vitest';
 import {
   createExactEvaluator,
   createPlanEvaluator,
-  designPlan,
+  designLinearCountPlan,
   resolvePlan,
   suggestedTruncation,
   waldPoint,
 } from '../../src-main/engine/index.js';
-import type { PlanSpec } from '../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../src-main/engine/index.js';
 
 // Plans kept small enough (p1/p0 >= 1.5, p0 >= 0.02) for fast exact runs.
 const passFailSpec = fc
@@ -18,7 +18,7 @@ const passFailSpec = fc
     alpha: fc.double({ min: 0.01, max: 0.25, noNaN: true }),
     beta: fc.double({ min: 0.01, max: 0.25, noNaN: true }),
   })
-  .map(({ p0, ratio, alpha, beta }): PlanSpec => ({ model: 'passfail', p0, p1: Math.min(0.9, p0 * ratio), alpha, beta }));
+  .map(({ p0, ratio, alpha, beta }): LinearCountSpec => ({ model: 'passfail', p0, p1: Math.min(0.9, p0 * ratio), alpha, beta }));
 
 const countSpec = fc
   .record({
@@ -27,16 +27,16 @@ const countSpec = fc
     alpha: fc.double({ min: 0.01, max: 0.25, noNaN: true }),
     beta: fc.double({ min: 0.01, max: 0.25, noNaN: true }),
   })
-  .map(({ lambda0, ratio, alpha, beta }): PlanSpec => ({ model: 'count', lambda0, lambda1: lambda0 * ratio, alpha, beta }));
+  .map(({ lambda0, ratio, alpha, beta }): LinearCountSpec => ({ model: 'count', lambda0, lambda1: lambda0 * ratio, alpha, beta }));
 
 const anySpec = fc.oneof(passFailSpec, countSpec);
 
-function hypotheses(spec: PlanSpec) {
+function hypotheses(spec: LinearCountSpec) {
   return resolvePlan(spec).model.hypotheses(spec);
 }
 
 /** Qualities from 0 to twice the rejectable one, kept inside the model's range (p <= 1). */
-function qualityAt(spec: PlanSpec, fraction: number): number {
+function qualityAt(spec: LinearCountSpec, fraction: number): number {
   return Math.min(resolvePlan(spec).model.qualityUpperLimit, 2 * hypotheses(spec).theta1 * fraction);
 }
 
@@ -57,7 +57,7 @@ describe('properties of the exact plan', () => {
   });
 
   it("the untruncated plan's exact alpha + beta stays within nominal alpha + beta (Wald's bound)", () => {
-    // Wald (1947) §3, from memory [M]; reference-values CV-01: alpha' + beta' <= alpha + beta. Common practice.
+    // Wald (1947) §3, from memory (from memory); Wald 1947 ch. 3 (from memory): alpha' + beta' <= alpha + beta. Common practice.
     fc.assert(
       fc.property(anySpec, (spec) => {
         const evaluator = createPlanEvaluator(spec);
@@ -123,8 +123,8 @@ describe('properties of the exact plan', () => {
   it('the exact-risk fit meets both nominal risks without raising the larger ASN', () => {
     fc.assert(
       fc.property(anySpec, fc.option(fc.integer({ min: 20, max: 200 }), { nil: null }), (spec, truncation) => {
-        const fitted = designPlan({ ...spec, truncation, fit: 'exact' }, { curvePoints: 2 });
-        const wald = designPlan({ ...spec, truncation }, { curvePoints: 2 });
+        const fitted = designLinearCountPlan({ ...spec, truncation, fit: 'exact' }, { curvePoints: 2 });
+        const wald = designLinearCountPlan({ ...spec, truncation }, { curvePoints: 2 });
         if (!fitted.fit.feasible) {
           // Only a short truncation can make both risks unreachable; then Wald's lines are kept.
           expect(truncation).not.toBeNull();

@@ -1,11 +1,11 @@
 // Specs whose design used to run until killed (or throw a typed-array RangeError), each with the
 // parameter the refusal names and words its one-line message must hold. Shared by the engine, the
 // channel and the command-line tests, so all three refuse the same list.
-import type { AnyPlanSpec } from '../../src-main/engine/index.js';
+import type { PlanSpec } from '../../src-main/engine/index.js';
 
 export interface UnboundedSpec {
   name: string;
-  spec: AnyPlanSpec;
+  spec: PlanSpec;
   /** The engine parameter the refusal names. */
   parameter: string;
   /** Words the message must contain: what is allowed. */

@@ -5,7 +5,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterEach } from 'vitest';
-import { decide } from '../../src-main/engine/index.js';
+import { decideLinearCount } from '../../src-main/engine/index.js';
 import { layout } from '../../src-main/store/index.js';
 import { compiledCliEntry } from '../cli/runCli.js';
 
@@ -74,7 +74,7 @@ describe('the run command line', () => {
     const fed = await cli(['feed', '--run', runId, '--data-dir', data, '--json'], 'pass\n0\nfail\n1\n1\n1\n1\n1\n');
     expect(fed.code).toBe(0);
     const printed = lines(fed.stdout) as { seq: number; state: string }[];
-    const expected = decide({ model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 }, printed.length, printed.length - 2);
+    const expected = decideLinearCount({ model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 }, printed.length, printed.length - 2);
     expect(printed.at(-1)).toEqual({ seq: printed.length, state: expected.decision });
     expect(expected.decision).toBe('reject');
     expect(printed.slice(0, -1).every((line) => line.state === 'continue')).toBe(true);

@@ -3,7 +3,7 @@ import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterEach } from 'vitest';
-import type { AnyPlanSpec, CountSpec, PassFailSpec } from '../../src-main/engine/index.js';
+import type { PlanSpec, CountSpec, PassFailSpec } from '../../src-main/engine/index.js';
 import { createRunService, type RunService } from '../../src-main/inspection/index.js';
 import { PlanRepository, SourceRepository, type PlanVersion, type Source } from '../../src-main/store/index.js';
 
@@ -23,7 +23,7 @@ export interface Workspace {
   readonly plan: PlanVersion;
 }
 
-export async function workspace(spec: AnyPlanSpec = passFailSpec): Promise<Workspace> {
+export async function workspace(spec: PlanSpec = passFailSpec): Promise<Workspace> {
   const data = await mkdtemp(path.join(os.tmpdir(), 'tallyline-inspection-'));
   const service = createRunService({ dataDirectory: data });
   cleanups.push(() => rm(data, { recursive: true, force: true }));

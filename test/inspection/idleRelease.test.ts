@@ -12,6 +12,8 @@ afterEach(async () => {
 });
 
 const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+/** Long enough that a loaded 2-core machine does not let the run go between two steps of the test. */
+const IDLE_MS = 1_000;
 
 describe('a run service lets go of an idle run', () => {
   it('keeps a run locked against a second writer while in use, and hands it over once idle', async () => {
@@ -19,16 +21,16 @@ describe('a run service lets go of an idle run', () => {
     folders.push(data);
     const source = await new SourceRepository(data).create({ name: 'Kestrel Fasteners (invented)' });
     const plan = await new PlanRepository(data).save({ name: 'Flange nut', sourceId: source.id, spec: passFailSpec });
-    const window = createRunService({ dataDirectory: data, idleReleaseMs: 150 });
-    const station = createRunService({ dataDirectory: data, idleReleaseMs: 150 });
+    const window = createRunService({ dataDirectory: data, idleReleaseMs: IDLE_MS });
+    const station = createRunService({ dataDirectory: data, idleReleaseMs: IDLE_MS });
     try {
       const { run } = await window.startRun({ planId: plan.id, sourceId: source.id, lot: 'L-7' });
       await window.recordResult(run.id, { result: 'pass', actor: 'window' });
       await expect(station.recordResult(run.id, { result: 'pass', actor: 'station' })).rejects.toThrow(/cannot be written/);
-      await pause(400);
+      await pause(2.5 * IDLE_MS);
       const taken = await station.recordResult(run.id, { result: 'pass', actor: 'station' });
       expect(taken.state.n).toBe(2);
-      await pause(400);
+      await pause(2.5 * IDLE_MS);
       const back = await window.recordResult(run.id, { result: 'pass', actor: 'window' });
       expect(back.state.n).toBe(3); // the window re-reads the journal, so the station's entry counts
     } finally {

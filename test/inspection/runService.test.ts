@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { liveState } from '../../src-main/engine/index.js';
+import { linearCountLiveState } from '../../src-main/engine/index.js';
 import { createRunService, RunClosedError, RunNotWritableError } from '../../src-main/inspection/index.js';
 import { PlanRepository, layout, verifyJournal } from '../../src-main/store/index.js';
 import { appendFile, readFile, writeFile } from 'node:fs/promises';
@@ -20,7 +20,7 @@ describe('the run service', () => {
     const results = ['pass', 'fail', 'pass', 'pass'] as const;
     let last;
     for (const result of results) last = await service.recordResult(run.id, { result, actor: 'Ana' });
-    const engine = liveState(passFailSpec, 4, 1);
+    const engine = linearCountLiveState(passFailSpec, 4, 1);
     expect(last?.state).toMatchObject({ decision: engine.decision, n: 4, total: 1, llr: engine.llr });
   });
 

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { designPlan } from '../../src-main/engine/index.js';
+import { designLinearCountPlan } from '../../src-main/engine/index.js';
 import { estimateAfterStop } from '../../src-main/engine/estimation/index.js';
 import { layout, verifyJournal } from '../../src-main/store/index.js';
 import { decisionRecordForRun, recordIdFor } from '../../src-main/record/fromRun.js';
@@ -77,7 +77,7 @@ describe('the decision record of a decided run made through the run service', ()
   });
 
   it("prints the plan with the engine's exact risks and ASN, Wald's boundaries, truncation, and its name, id and version", () => {
-    const design = designPlan(incomingSpec, { curvePoints: 2 });
+    const design = designLinearCountPlan(incomingSpec, { curvePoints: 2 });
     const { boundaries } = design;
     for (const expected of [
       `Plan M6 flange nut, thread gauge, id ${input.plan.planId}, version 1`,

@@ -6,14 +6,14 @@
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
-import type { AnyPlanSpec, PlanSpec } from '../../src-main/engine/index.js';
+import type { PlanSpec, LinearCountSpec } from '../../src-main/engine/index.js';
 import { createRunService, type ResultInput, type RunService } from '../../src-main/inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, type PlanVersion, type Source } from '../../src-main/store/index.js';
 
 /** p0 1 %, p1 10 %, 5 % risks, untruncated: 0 failures accept at 31 items, 1 failure at 57 (engine's decide). */
-export const incomingSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
+export const incomingSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05 };
 /** A plan that separates close qualities, so 500 passes are still undecided (acceptance needs about 2 900). */
-export const slowSpec: PlanSpec = { model: 'passfail', p0: 0.001, p1: 0.002, alpha: 0.05, beta: 0.05 };
+export const slowSpec: LinearCountSpec = { model: 'passfail', p0: 0.001, p1: 0.002, alpha: 0.05, beta: 0.05 };
 
 export const INVENTED_ORGANISATION = 'Northgate Assembly Ltd (invented)';
 export const INVENTED_SITE = 'Plant 2, goods-in inspection (invented)';
@@ -56,7 +56,7 @@ export async function sourceWithPlan(
   space: RecordWorkspace,
   sourceName: string,
   planName: string,
-  spec: AnyPlanSpec,
+  spec: PlanSpec,
   checks: { part?: string; characteristic?: string } = {},
 ): Promise<{ source: Source; plan: PlanVersion }> {
   const source = (await space.sources.findOrCreate(sourceName)).source;

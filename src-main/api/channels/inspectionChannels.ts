@@ -13,7 +13,7 @@
  *   lifetime: `model: 'lifetime', time, failures` (n = counted entries, total = failures);
  *   graded: `model: 'graded', counts, demerits` (total = demerits).
  *
- * `live` (InspectionLive): the engine's `liveState` (passfail/count, no `model`), or
+ * `live` (InspectionLive): the engine's `linearCountLiveState` (passfail/count, no `model`), or
  *   `{ model, ...measurementLiveState | lifetimeLiveState | gradedLiveState }`.
  *
  * `frame` (InspectionFrame): what the evidence chart draws the run against; `horizon`, `limits`,
@@ -31,7 +31,7 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import { shortText } from '../../store/textFields.js';
-import type { GradedLiveState, LifetimeLiveState, LimitRow, LiveState, MeasurementLiveState } from '../../engine/index.js';
+import type { GradedLiveState, LifetimeLiveState, LimitRow, LinearCountLiveState, MeasurementLiveState } from '../../engine/index.js';
 import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, type RunView } from '../../inspection/index.js';
 
 /** Run ids become file names: the same characters the store allows. */
@@ -140,7 +140,7 @@ export type InspectionFrame = EvidenceFrame | MeasurementFrame | LifetimeFrame |
 
 /** The look-ahead of a run, from the model's live-state function. */
 export type InspectionLive =
-  | (LiveState & { readonly model?: undefined })
+  | (LinearCountLiveState & { readonly model?: undefined })
   | (MeasurementLiveState & { readonly model: 'measurement' })
   | (LifetimeLiveState & { readonly model: 'lifetime' })
   | (GradedLiveState & { readonly model: 'graded' });

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import { shortText } from '../../store/textFields.js';
-import type { AnyPlanDesign, AnyPlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
+import type { PlanDesign, PlanSpec, KlDivergences, WaldBoundaries } from '../../engine/index.js';
 import { planSpecSchemas } from '../../store/planSpecSchema.js';
 import type { PlanVersion } from '../../store/plans.js';
 import type { SourceKind, SourcePart } from '../../store/sources.js';
@@ -30,7 +30,7 @@ export const planChannels = {
    * plan, the table of acceptance/rejection numbers, the distribution of items inspected.
    * `suggestTruncation` truncates where the engine suggests (the spec's truncation is then ignored);
    * pass/fail and count only, the other models are designed as given.
-   * The answer's `design` is discriminated by `model`: PlanDesign (passfail, count), MeasurementDesign,
+   * The answer's `design` is discriminated by `model`: LinearCountDesign (passfail, count), MeasurementDesign,
    * LifetimeDesign or GradedDesign (engine/models/*-design.ts).
    * `stream` + `ticket`: a request superseded by a newer ticket of the same stream before its turn
    * answers `{ superseded: true }` without computing.
@@ -75,12 +75,12 @@ export const planChannels = {
   'plan.import': { input: z.object({ text: z.string().max(maximumPlanFileLength, 'A plan file is at most 100 kB.') }) },
 } as const;
 
-/** What `designAnyPlan` computes, as it travels to the renderer: discriminated by `model`. */
-export type PlanDesign = AnyPlanDesign;
+/** What `designPlan` computes, as it travels to the renderer: discriminated by `model`. */
+export type LinearCountDesign = PlanDesign;
 
 export type DesignAnswer =
   | { superseded: true }
-  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: AnyPlanSpec; design: PlanDesign };
+  | { superseded: false; /** the spec that was designed, truncation resolved */ spec: PlanSpec; design: LinearCountDesign };
 
 export interface SourceChoice {
   id: string;
@@ -104,5 +104,5 @@ export interface PlanChannelOutputs {
   'plan.versions': SavedPlan[];
   'plan.open': SavedPlan;
   'plan.export': { fileName: string; text: string };
-  'plan.import': { name: string; spec: AnyPlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
+  'plan.import': { name: string; spec: PlanSpec; origin: { id: string; version: number; sourceId: string | null; sourceName: string | null } };
 }

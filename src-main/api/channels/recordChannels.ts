@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
-import type { AnyPlanSpec } from '../../engine/index.js';
+import type { PlanSpec } from '../../engine/index.js';
 import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
 import type { HistoryRow, RunHistory } from '../../record/runHistory.js';
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
@@ -37,7 +37,7 @@ export const recordChannels = {
 export interface RecordRunView {
   readonly row: HistoryRow;
   readonly recordId: string;
-  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: AnyPlanSpec };
+  readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: PlanSpec };
   readonly lotSize: number | null;
   readonly inspectors: string[];
   readonly entries: InspectionEntry[];

@@ -4,22 +4,15 @@
  * point on the evidence path. Shapes are described at the top of channels/inspectionChannels.ts.
  */
 import {
-  gradedLimitRows,
-  gradedLiveState,
+  gradedBoundaries,
   gradedPlan,
   lifetimeBoundaries,
-  lifetimeLimitRows,
-  lifetimeLiveState,
   lifetimePlan,
-  limitRows,
-  liveState,
-  measurementLimitRows,
-  measurementLiveState,
   measurementPlan,
+  planOf,
   resolvePlan,
-  gradedBoundaries,
-  type AnyPlanSpec,
-  type LiveState,
+  type LinearCountLiveState,
+  type PlanSpec,
 } from '../../engine/index.js';
 import { RunEvidence, type RunEntryView, type RunState } from '../../inspection/index.js';
 import type { InspectionEntry, InspectionFrame, InspectionLive } from '../channels/inspectionChannels.js';
@@ -30,24 +23,9 @@ const MINIMUM_HORIZON = 10;
 /** Failure counts drawn at least, for a lifetime chart. */
 const MINIMUM_FAILURES = 3;
 
-/** A spec whose truncation the run has gone past (entries after an override) is looked ahead without it. */
-function withoutPassedTruncation<Spec extends { truncation?: number | null }>(spec: Spec, n: number): Spec {
-  return spec.truncation != null && n > spec.truncation ? { ...spec, truncation: null } : spec;
-}
-
-/** The look-ahead of a run in the state given, from the model's live-state function. */
-export function runLive(spec: AnyPlanSpec, state: RunState): InspectionLive {
-  if (spec.model === 'measurement' && state.model === 'measurement') {
-    return { model: 'measurement', ...measurementLiveState(withoutPassedTruncation(spec, state.n), state.n, state.sum) };
-  }
-  if (spec.model === 'lifetime' && state.model === 'lifetime') {
-    return { model: 'lifetime', ...lifetimeLiveState(spec, state.time, state.failures) };
-  }
-  if (spec.model === 'graded' && state.model === 'graded') {
-    return { model: 'graded', ...gradedLiveState(withoutPassedTruncation(spec, state.n), state.counts) };
-  }
-  if (spec.model === 'passfail' || spec.model === 'count') return liveState(spec, state.n, state.total);
-  throw new Error(`the run's state does not match its ${spec.model} plan`);
+/** The look-ahead of a run in the state given, from the plan's model. */
+export function runLive(spec: PlanSpec, state: RunState): InspectionLive {
+  return planOf(spec).liveState(state);
 }
 
 /** Items to draw: far enough to show where the run is expected to end, never past the truncation. */
@@ -60,14 +38,14 @@ function itemHorizon(n: number, expectedRemaining: number, truncation: number | 
  * The limits the evidence chart draws, far enough ahead to show the earliest accept and reject
  * (pass/fail, count) or the expected end of the run (other models), never past the truncation.
  */
-export function evidenceFrame(spec: AnyPlanSpec, live: InspectionLive): InspectionFrame {
+export function evidenceFrame(spec: PlanSpec, live: InspectionLive): InspectionFrame {
   if (spec.model === 'measurement' && live.model === 'measurement') {
     const plan = measurementPlan(spec);
     const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
     return {
       model: 'measurement',
       horizon,
-      limits: measurementLimitRows(plan, horizon),
+      limits: planOf(spec).limitRows(horizon),
       lnA: plan.rejectLimit,
       lnB: plan.acceptLimit,
       truncation: plan.truncation,
@@ -83,7 +61,7 @@ export function evidenceFrame(spec: AnyPlanSpec, live: InspectionLive): Inspecti
     return {
       model: 'lifetime',
       horizon,
-      limits: lifetimeLimitRows(plan, horizon),
+      limits: planOf(spec).limitRows(horizon),
       lnA: plan.lnA,
       lnB: plan.lnB,
       truncation: null,
@@ -98,7 +76,7 @@ export function evidenceFrame(spec: AnyPlanSpec, live: InspectionLive): Inspecti
     return {
       model: 'graded',
       horizon,
-      limits: gradedLimitRows(plan, horizon),
+      limits: planOf(spec).limitRows(horizon),
       lnA: plan.lnA,
       lnB: plan.lnB,
       truncation: plan.truncation,
@@ -109,14 +87,14 @@ export function evidenceFrame(spec: AnyPlanSpec, live: InspectionLive): Inspecti
   throw new Error(`the run's look-ahead does not match its ${spec.model} plan`);
 }
 
-function linearFrame(spec: Parameters<typeof resolvePlan>[0], live: LiveState): InspectionFrame {
+function linearFrame(spec: Parameters<typeof resolvePlan>[0], live: LinearCountLiveState): InspectionFrame {
   const { lines, countWeight } = resolvePlan(spec);
   const reach = live.n + Math.max(live.itemsToEarliestAccept ?? 0, live.itemsToEarliestReject ?? 0);
   const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * reach));
   const horizon = lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, live.n));
   return {
     horizon,
-    limits: limitRows(lines, horizon),
+    limits: planOf(spec).limitRows(horizon),
     // ln A and ln B of the lines in use (the fitted ones when the plan fits exact risks).
     lnA: lines.h2 * countWeight,
     lnB: -lines.h1 * countWeight,
@@ -131,7 +109,7 @@ export function pointOf(state: RunState): NonNullable<InspectionEntry['after']> 
 }
 
 /** Each counted result with the statistics after it: the points of the evidence path. */
-export function withStatistics(spec: AnyPlanSpec, entries: readonly RunEntryView[]): InspectionEntry[] {
+export function withStatistics(spec: PlanSpec, entries: readonly RunEntryView[]): InspectionEntry[] {
   const evidence = new RunEvidence(spec);
   return entries.map((entry) => {
     if (entry.voided) return { ...entry, after: null };

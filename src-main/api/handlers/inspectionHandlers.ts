@@ -1,4 +1,4 @@
-import type { AnyPlanSpec } from '../../engine/index.js';
+import type { PlanSpec } from '../../engine/index.js';
 import {
   ResultRefusedError,
   RunClosedError,
@@ -28,7 +28,7 @@ export interface InspectionHandlerContext {
 
 /** What a handler needs to know of a run between requests: fixed at its start. */
 interface KnownRun {
-  readonly spec: AnyPlanSpec;
+  readonly spec: PlanSpec;
   readonly actor: string;
 }
 
@@ -52,7 +52,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
   }
 
   /** The answer to an append; the run's header is read again only when the append changed its status. */
-  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: AnyPlanSpec): Promise<InspectionStep> {
+  async function step(runId: string, kind: InspectionStep['kind'], outcome: RecordOutcome, spec: PlanSpec): Promise<InspectionStep> {
     const live = runLive(spec, outcome.state);
     const statusChanged = outcome.closedWith !== null || kind === 'override';
     const { status, decision, rule, closedAt } = statusChanged

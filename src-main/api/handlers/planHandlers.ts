@@ -1,7 +1,7 @@
-import { checkAnyPlanSpec, designAnyPlan, klDivergences, waldBoundaries, type AnyPlanSpec } from '../../engine/index.js';
+import { checkPlanSpec, designPlan, isLinearCountSpec, klDivergences, waldBoundaries, type PlanSpec } from '../../engine/index.js';
 import { PLAN_FORMAT, PlanRepository, planVersionSchema, type PlanVersion } from '../../store/plans.js';
 import { SourceRepository } from '../../store/sources.js';
-import type { DesignAnswer, PlanDesign, SavedPlan } from '../channels/planChannels.js';
+import type { DesignAnswer, LinearCountDesign, SavedPlan } from '../channels/planChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
 
@@ -21,13 +21,13 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const latest = new LatestTicket();
-  const recentDesigns = new Map<string, PlanDesign>();
+  const recentDesigns = new Map<string, LinearCountDesign>();
 
-  function designOnce(spec: AnyPlanSpec, curvePoints: number | undefined): PlanDesign {
+  function designOnce(spec: PlanSpec, curvePoints: number | undefined): LinearCountDesign {
     const key = JSON.stringify([spec, curvePoints ?? null]);
     const known = recentDesigns.get(key);
     if (known) return known;
-    const design = designAnyPlan(spec, { curvePoints });
+    const design = designPlan(spec, { curvePoints });
     recentDesigns.set(key, design);
     if (recentDesigns.size > designCacheSize) recentDesigns.delete(recentDesigns.keys().next().value as string);
     return design;
@@ -56,7 +56,7 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
         if (!(await latest.isStillNewest(stream, ticket))) return { superseded: true };
       }
       // Only the linear-count designs suggest a truncation; the other models are designed as given.
-      if (!suggestTruncation || (spec.model !== 'passfail' && spec.model !== 'count')) {
+      if (!suggestTruncation || !isLinearCountSpec(spec)) {
         return { superseded: false, spec, design: designOnce(spec, curvePoints) };
       }
       // The suggestion is computed on the untruncated lines; the plan then stops there.
@@ -69,7 +69,7 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
       (await sources.list()).map((source) => ({ id: source.id, name: source.name, kind: source.kind, parts: source.parts })),
 
     'plan.save': async ({ id, name, source, part, characteristic, spec }) => {
-      checkAnyPlanSpec(spec); // refuses an invalid spec with the engine's own message before anything is written
+      checkPlanSpec(spec); // refuses an invalid spec with the engine's own message before anything is written
       if (id !== undefined) await existingPlan(id);
       let sourceId: string | null = null;
       if (source !== null && 'id' in source) {

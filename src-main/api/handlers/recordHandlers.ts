@@ -1,4 +1,4 @@
-import { limitRows, resolvePlan, type AnyPlanSpec, type PlanSpec } from '../../engine/index.js';
+import { linearCountLimitRows, resolvePlan, type PlanSpec, type LinearCountSpec } from '../../engine/index.js';
 import { RunJournalContentError, resultTotal } from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/entriesCsv.js';
 import { decisionRecordFromRun, evidenceHorizon, recordContextFor } from '../../record/fromRun.js';
@@ -77,7 +77,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
 }
 
 /** The evidence path and the frame it is drawn in: for the models with their own design path, as the Inspect place draws them. */
-function recordEvidence(read: RunJournalRead, spec: AnyPlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
+function recordEvidence(read: RunJournalRead, spec: PlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
   if (spec.model === 'passfail' || spec.model === 'count') {
     return { entries: evidenceEntries(read, spec), frame: evidenceFrame(spec, itemsInspected) };
   }
@@ -85,7 +85,7 @@ function recordEvidence(read: RunJournalRead, spec: AnyPlanSpec, itemsInspected:
 }
 
 /** Each result with n, total and LLR after it (null for a voided one): the points of the evidence path. */
-function evidenceEntries(read: RunJournalRead, spec: PlanSpec): InspectionEntry[] {
+function evidenceEntries(read: RunJournalRead, spec: LinearCountSpec): InspectionEntry[] {
   const { countWeight, itemOffset } = resolvePlan(spec);
   let n = 0;
   let total = 0;
@@ -98,8 +98,8 @@ function evidenceEntries(read: RunJournalRead, spec: PlanSpec): InspectionEntry[
 }
 
 /** The steps the chart draws: the same horizon as the printed record's chart. */
-function evidenceFrame(spec: PlanSpec, itemsInspected: number): EvidenceFrame {
+function evidenceFrame(spec: LinearCountSpec, itemsInspected: number): EvidenceFrame {
   const { lines, countWeight } = resolvePlan(spec);
   const horizon = evidenceHorizon(spec, itemsInspected);
-  return { horizon, limits: limitRows(lines, horizon), lnA: lines.h2 * countWeight, lnB: -lines.h1 * countWeight, truncation: lines.truncation };
+  return { horizon, limits: linearCountLimitRows(lines, horizon), lnA: lines.h2 * countWeight, lnB: -lines.h1 * countWeight, truncation: lines.truncation };
 }

@@ -1,5 +1,5 @@
 import { decisionAt } from '../integerLines.js';
-import type { PlanSpec } from '../spec.js';
+import type { LinearCountSpec } from '../spec.js';
 import { biasAdjustedEstimate } from './biasAdjusted.js';
 import { stagewiseInference } from './stagewiseInterval.js';
 import { createStoppingEvaluator } from './stoppingDistribution.js';
@@ -45,7 +45,7 @@ export interface EstimateAfterStop {
  *   point of the plan (the message says which counts would stop the run at n).
  */
 export function estimateAfterStop(
-  plan: PlanSpec | StoppingEvaluator,
+  plan: LinearCountSpec | StoppingEvaluator,
   observed: { n: number; total: number; confidence?: number },
 ): EstimateAfterStop {
   const evaluator = 'tail' in plan ? plan : createStoppingEvaluator(plan);

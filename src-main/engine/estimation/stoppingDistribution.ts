@@ -1,9 +1,9 @@
 import { PlanParameterError } from '../errors.js';
 import { rawAcceptanceNumber, rejectionNumber, truncationAcceptanceNumber } from '../integerLines.js';
 import type { IntegerLines } from '../integerLines.js';
-import type { CountStep } from '../models/model.js';
-import { resolvePlan } from '../planLines.js';
-import type { PlanSpec } from '../spec.js';
+import type { CountStep } from '../models/linearCountDefinition.js';
+import { resolvePlan } from '../resolvePlan.js';
+import type { LinearCountSpec } from '../spec.js';
 import { StagewiseSide, compareStagewise } from './stagewiseOrder.js';
 
 /** One point (n, d) at which a run of the plan stops, with its probability at the quality asked. */
@@ -48,7 +48,7 @@ export interface StoppingEvaluatorOptions {
 
 /** An evaluator of the stopping distribution of one plan, built once and called at many qualities. */
 export interface StoppingEvaluator {
-  readonly spec: PlanSpec;
+  readonly spec: LinearCountSpec;
   readonly lines: IntegerLines;
   readonly countStep: CountStep;
   /** The quality under H0 (p0 or lambda0) and under H1. */
@@ -80,11 +80,11 @@ function poissonReach(rate: number): number {
  * References: Armitage, P. (1958), "Numerical studies in the sequential estimation of a binomial
  * parameter", Biometrika 45(1/2):1-15 (the boundary distribution of a binomial sequential plan);
  * Jennison, C. and Turnbull, B. W. (2000), Group Sequential Methods with Applications to Clinical
- * Trials, §8.4; reference-values §9 (Tallyline shared notes) for the recursion and its guards.
+ * Trials, §8.4; common practice, no source for the recursion and its guards.
  *
  * @throws PlanParameterError for an invalid spec or options.
  */
-export function createStoppingEvaluator(spec: PlanSpec, options: StoppingEvaluatorOptions = {}): StoppingEvaluator {
+export function createStoppingEvaluator(spec: LinearCountSpec, options: StoppingEvaluatorOptions = {}): StoppingEvaluator {
   const plan = resolvePlan(spec);
   const lines = plan.lines;
   const countStep = plan.model.countStep;

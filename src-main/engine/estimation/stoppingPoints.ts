@@ -1,7 +1,7 @@
 import { PlanParameterError } from '../errors.js';
 import { rawAcceptanceNumber, rejectionNumber } from '../integerLines.js';
 import type { IntegerLines } from '../integerLines.js';
-import type { CountStep } from '../models/model.js';
+import type { CountStep } from '../models/linearCountDefinition.js';
 import { StagewiseSide } from './stagewiseOrder.js';
 
 /** The stopping points of a plan at one item count: which cumulative counts can end the run there. */

@@ -1,42 +1,144 @@
+/**
+ * The registry of data models: one line per model. Everything outside `models/` reaches a model
+ * through `planOf` (a checked spec bound to its model) or `designPlan`, never by its name.
+ */
 import { PlanParameterError } from '../errors.js';
-import type { PlanSpec } from '../spec.js';
-import { countModel } from './count.js';
-import type { ModelDefinition } from './model.js';
-import { passFailModel } from './passfail.js';
+import { checkCurvePoints, checkPlanWork, type PlanWorkEstimate } from '../planWork.js';
+import type { ModelName, PlanSpec } from '../spec.js';
+import { countModel } from './count/countModel.js';
+import { gradedModel } from './graded/gradedModel.js';
+import { lifetimeModel } from './lifetime/lifetimeModel.js';
+import { measurementModel } from './measurement/measurementModel.js';
+import { passFailModel } from './passfail/passFailModel.js';
+import type { DesignOptions, ModelLabels, ModelShapes, SequentialModel } from './sequentialModel.js';
 
 const models = {
   passfail: passFailModel,
   count: countModel,
-} as const satisfies { [K in PlanSpec['model']]: ModelDefinition<Extract<PlanSpec, { model: K }>> };
+  measurement: measurementModel,
+  lifetime: lifetimeModel,
+  graded: gradedModel,
+} as const satisfies { [M in ModelName]: SequentialModel<ModelShapes & { spec: Extract<PlanSpec, { model: M }> }> };
 
-export const modelNames = Object.keys(models) as PlanSpec['model'][];
+type Models = typeof models;
+type ShapesOf<M extends ModelName> = Models[M] extends SequentialModel<infer T> ? T : never;
 
-/**
- * The model definition for a spec, untyped in the spec so generic code can use it.
- *
- * Method: lookup on spec.model in the registry of models.
- * References: none (plumbing).
- */
-export function modelOf(spec: PlanSpec): ModelDefinition<PlanSpec> {
+/** The design of a plan of model M (a union when M is). */
+export type DesignOf<M extends ModelName> = M extends ModelName ? ShapesOf<M>['design'] : never;
+/** The design of a plan of any model, discriminated by `model`. */
+export type PlanDesign = DesignOf<ModelName>;
+/** The evidence state (decision and statistic in natural units) of a run of any model. */
+export type EvidenceState = { [M in ModelName]: ShapesOf<M>['state'] }[ModelName];
+/** The live state (with look-ahead) of a run of any model; pass/fail and count carry no `model` field. */
+export type PlanLiveState = { [M in ModelName]: ShapesOf<M>['live'] }[ModelName];
+/** One row of the limits table of a plan of model M. */
+export type LimitRowOf<M extends ModelName> = M extends ModelName ? ShapesOf<M>['row'] : never;
+/** One result of a run of any model, as the run service takes it. */
+export type Observation = { [M in ModelName]: ShapesOf<M>['observation'] }[ModelName];
+/** The accumulated evidence of a run of any model (opaque outside the model). */
+export type Evidence = { [M in ModelName]: ShapesOf<M>['evidence'] }[ModelName];
+
+/** Every model's name, in the registry's order. */
+export const modelNames = Object.keys(models) as ModelName[];
+
+/** A model's labels (title, quality symbol, hypotheses' symbols, what an entry is). */
+export function modelLabels(model: ModelName): ModelLabels {
+  return models[model].labels;
+}
+
+/** The model of a spec, erased to the shapes every model shares. */
+function modelOf(spec: PlanSpec): SequentialModel<ModelShapes> {
+  if (spec === null || typeof spec !== 'object') throw new PlanParameterError('spec', spec, 'a plan specification object');
   const name = (spec as { model?: unknown }).model;
   if (typeof name !== 'string' || !Object.hasOwn(models, name)) {
     throw new PlanParameterError('model', name, `one of ${modelNames.join(', ')}`);
   }
-  return models[name as PlanSpec['model']] as unknown as ModelDefinition<PlanSpec>;
+  return models[name as ModelName] as unknown as SequentialModel<ModelShapes>;
 }
 
 /**
- * Validates the spec once (throws PlanParameterError) and returns its model definition.
- *
- * Method: the model's own checks (qualities ordered and in range) and the shared ones
- * (risks in (0, 1) with alpha + beta < 1, truncation a positive integer).
- * References: Wald, A. (1947), Sequential Analysis, §3.2 (why alpha + beta < 1: A > 1 > B).
+ * A checked plan of any model, bound to its model: the one way the run service, the CLI, the
+ * channels and the record reach the model's evidence, decision, look-ahead and limits.
  */
-export function validatedModel(spec: PlanSpec): ModelDefinition<PlanSpec> {
-  if (spec === null || typeof spec !== 'object') {
-    throw new PlanParameterError('spec', spec, 'a plan specification object');
-  }
+export interface SequentialPlan<M extends ModelName = ModelName> {
+  readonly model: M;
+  readonly spec: Extract<PlanSpec, { model: M }>;
+  readonly labels: ModelLabels;
+  emptyEvidence(): Evidence;
+  /** A sentence saying what is wrong with a result for this plan, or null when it fits. */
+  observationProblem(observation: unknown, evidence: Evidence): string | null;
+  /** The result as the journal keeps it (a graded class spelled as the plan spells it); checked first. */
+  canonical(observation: Observation): Observation;
+  /** The evidence after one more result (checked with observationProblem first). */
+  observe(evidence: Evidence, observation: Observation): Evidence;
+  /** The LLR one result adds to the evidence given. */
+  llrStep(evidence: Evidence, observation: Observation): number;
+  /** The decision and the statistic in natural units. */
+  state(evidence: Evidence): EvidenceState;
+  /** The look-ahead from a state (as `state` gave it) under H0, H1 and the current estimate. */
+  liveState(state: EvidenceState): PlanLiveState;
+  /** Rows of the limits table up to `horizon` (items, or failure counts for lifetime), none past the truncation. */
+  limitRows(horizon: number): LimitRowOf<M>[];
+}
+
+/**
+ * Checks a spec with its model and binds the plan to it.
+ *
+ * Method: lookup of spec.model in the registry; the model's own check (its `plan`).
+ * References: none (plumbing).
+ *
+ * @throws PlanParameterError naming the parameter, its value and what is allowed.
+ */
+export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> {
+  checkPlanSpec(spec);
   const model = modelOf(spec);
-  model.validate(spec);
-  return model;
+  const plan = model.plan(spec);
+  return {
+    model: spec.model,
+    spec: spec as unknown as Extract<PlanSpec, { model: S["model"] }>,
+    labels: model.labels,
+    emptyEvidence: () => model.emptyEvidence(plan) as Evidence,
+    observationProblem: (observation, evidence) => model.observationProblem(plan, observation, evidence),
+    canonical: (observation) => model.canonical(plan, observation) as Observation,
+    observe: (evidence, observation) => model.observe(plan, evidence, observation) as Evidence,
+    llrStep: (evidence, observation) => model.llrStep(plan, evidence, observation),
+    state: (evidence) => model.state(plan, evidence) as EvidenceState,
+    liveState: (state) => model.liveState(plan, state) as PlanLiveState,
+    limitRows: (horizon) => model.limitRows(plan, horizon) as LimitRowOf<S['model']>[],
+  };
+}
+
+/**
+ * Checks a spec without designing it, in well under a millisecond: its model's own checks (ranges,
+ * truncation and failure bounds), then the size of its runs and of its design (checkPlanWork). The
+ * one check for the CLI, the channels, plan files, restore and journal replay.
+ *
+ * @param options.curvePoints the qualities the design will compute (default 51).
+ * @throws PlanParameterError naming the parameter, its value and what is allowed.
+ */
+export function checkPlanSpec(spec: PlanSpec, options: DesignOptions = {}): void {
+  checkPlanWork(spec, estimatePlanWork(spec, options.curvePoints ?? 51));
+}
+
+/**
+ * The size of a spec's runs and of its design with `curvePoints` qualities, as its model estimates it.
+ *
+ * @throws PlanParameterError for a spec its model refuses or a bad curvePoints.
+ */
+export function estimatePlanWork(spec: PlanSpec, curvePoints = 51): PlanWorkEstimate {
+  return modelOf(spec).estimateWork(spec, checkCurvePoints(curvePoints));
+}
+
+/**
+ * Designs a plan of any model: lines, Wald's figures, the exact (or simulated) figures, the limits
+ * table and the curves, as the model's `design` gives them.
+ *
+ * Method: the model's design; each keeps its own Method and References.
+ * References: see the model's design function.
+ *
+ * @throws PlanParameterError for an invalid spec or options.
+ */
+export function designPlan<S extends PlanSpec>(spec: S, options: DesignOptions = {}): DesignOf<S['model']> {
+  checkPlanSpec(spec, options);
+  return modelOf(spec).design(spec, options) as DesignOf<S['model']>;
 }

@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto';
 import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { PlanSpec } from '../../../src-main/engine/index.js';
+import type { LinearCountSpec } from '../../../src-main/engine/index.js';
 import { RunReplay } from '../../../src-main/inspection/index.js';
 import {
   GENESIS_HASH,
@@ -25,7 +25,7 @@ import { benchCase } from '../benchCase.js';
 const RELOAD_RESULTS = 10_000;
 
 /** Wald plan whose acceptance and rejection lines a result pattern near the midline never leaves. */
-const reloadSpec: PlanSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05, truncation: null, fit: 'wald' };
+const reloadSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.05, truncation: null, fit: 'wald' };
 // Wald's midline slope s = ln((1-p0)/(1-p1)) / (ln(p1/p0) + ln((1-p0)/(1-p1))) for this plan.
 const MIDLINE_SLOPE = Math.log(0.99 / 0.9) / (Math.log(10) + Math.log(0.99 / 0.9));
 

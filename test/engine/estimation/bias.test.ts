@@ -6,7 +6,7 @@ import {
   naiveEstimateBias,
 } from '../../../src-main/engine/estimation/index.js';
 
-// The NIST/SEMATECH e-Handbook §6.2.6 plan (reference-values CV-02) truncated at 156 (CV-06).
+// The NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)) truncated at 156 (exact recursion over the integer lines (computed independently, checked by simulation)).
 const nist: PassFailSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1, truncation: 156 };
 const evaluator = createStoppingEvaluator(nist);
 const adjusted = new Map<string, number>();

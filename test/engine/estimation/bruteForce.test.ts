@@ -9,7 +9,7 @@ import {
 import { bisect, enumerateAllSequences, enumeratedProbability, enumeratedTails } from './sequences.js';
 
 // Plans small enough to enumerate every sequence (2^n_t of them):
-// - the NIST/SEMATECH e-Handbook §6.2.6 plan (reference-values CV-02) truncated at 20, before its first
+// - the NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)) truncated at 20, before its first
 //   possible acceptance at n = 24, so every accept is a truncation stop;
 // - a plan with wide hypotheses (common practice, no source) that accepts at n = 8 and n = 15, rejects
 //   from n = 2 and truncates at 16.

@@ -5,8 +5,8 @@ import { createStoppingEvaluator, stagewiseInference } from '../../../src-main/e
 import type { StagewiseInference, StoppingEvaluator } from '../../../src-main/engine/estimation/index.js';
 import { seededUniform } from './sequences.js';
 
-// The NIST/SEMATECH e-Handbook §6.2.6 plan (reference-values CV-02) truncated at 156 = 3 x 52, the
-// handbook's three-times-the-single-plan rule (reference-values CV-06).
+// The NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)) truncated at 156 = 3 x 52, the
+// handbook's three-times-the-single-plan rule (exact recursion over the integer lines (computed independently, checked by simulation)).
 const nist: PassFailSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1, truncation: 156 };
 const trueQualities = [0.005, 0.02, 0.05, 0.1, 0.15];
 const confidence = 0.9;

@@ -8,7 +8,7 @@ import {
 } from '../../../src-main/engine/estimation/index.js';
 import { poissonCdf } from '../referenceDistributions.js';
 
-// The NIST/SEMATECH e-Handbook §6.2.6 plan (reference-values CV-02): rejection number 2 for n = 2..19,
+// The NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)): rejection number 2 for n = 2..19,
 // first acceptance (count 0) at n = 24.
 const nist: PassFailSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
 const nistAt156: PassFailSpec = { ...nist, truncation: 156 };
@@ -81,9 +81,9 @@ describe('estimateAfterStop at the edges of the sample space', () => {
     expect(poissonCdf(observed, result.interval.upper)).toBeCloseTo(0.05, 8);
   });
 
-  it('the stopping distribution reproduces the truncated NIST OC and ASN (reference-values CV-06)', () => {
+  it('the stopping distribution reproduces the truncated NIST OC and ASN (exact recursion over the integer lines (computed independently, checked by simulation))', () => {
     const evaluator = createStoppingEvaluator(nistAt156);
-    // reference-values CV-06, computed [C]: truncated OC 0.97794 / 0.4701 / 0.09964, ASN 30.209 / 36.94 / 22.367.
+    // exact recursion over the integer lines (computed independently, checked by simulation): truncated OC 0.97794 / 0.4701 / 0.09964, ASN 30.209 / 36.94 / 22.367.
     const cases = [
       [0.01, 0.97794, 30.209],
       [0.05, 0.4701, 36.94],

@@ -4,7 +4,7 @@
  * accepting and the evidence still expected.
  */
 import type { InspectionLive } from '../../../../src-main/api/channels/inspectionChannels';
-import type { LiveState } from '../../../../src-main/engine/index';
+import type { LinearCountLiveState } from '../../../../src-main/engine/index';
 import { figure } from '../../lib/format';
 import type { ModelWords } from './modelWords';
 
@@ -30,7 +30,7 @@ export interface LookAhead {
 const amount = (value: number | null, digits: number) => (value === null ? '–' : figure(value, digits));
 
 /** Pass/fail and count runs: items until an accept is possible, nonconforming items that would reject. */
-function linearLookAhead(live: LiveState, words: ModelWords): LookAhead {
+function linearLookAhead(live: LinearCountLiveState, words: ModelWords): LookAhead {
   const open = live.decision === 'continue';
   const one = words.items === 'units' ? 'unit' : 'item';
   const rejectWithin =

@@ -1,5 +1,5 @@
 /** The words and quality labels the Inspect place uses for a plan's model. */
-import type { AnyPlanSpec } from '../../../../src-main/engine/index';
+import type { PlanSpec } from '../../../../src-main/engine/index';
 
 export interface ModelWords {
   /** What one entry counts: "items", "units", "measurements" or "readings". */
@@ -20,7 +20,7 @@ function percent(fraction: number): string {
 
 const plain = (value: number) => Number(value.toPrecision(6));
 
-export function modelWords(spec: AnyPlanSpec): ModelWords {
+export function modelWords(spec: PlanSpec): ModelWords {
   switch (spec.model) {
     case 'passfail':
       return { items: 'items', counted: 'nonconforming items', countedShort: 'nonconforming', h0: `p0 = ${percent(spec.p0)}`, h1: `p1 = ${percent(spec.p1)}` };

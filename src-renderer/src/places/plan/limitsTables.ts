@@ -3,7 +3,7 @@
  * model's units (acceptance/rejection numbers, sums of measurements, test times, demerits).
  */
 import type { Cell } from '../../lib/tableText';
-import type { PlanDesign } from '../../../../src-main/api/channels/planChannels';
+import type { LinearCountDesign } from '../../../../src-main/api/channels/planChannels';
 
 export interface LimitsTableData {
   title: string;
@@ -17,7 +17,7 @@ export interface LimitsTableData {
 
 const rounded = (digits: number) => (value: number | null) => (value === null || !Number.isFinite(value) ? null : Number(value.toFixed(digits)));
 
-export function limitsTable(design: PlanDesign | null, counted: string): LimitsTableData | null {
+export function limitsTable(design: LinearCountDesign | null, counted: string): LimitsTableData | null {
   if (design === null) return null;
   const dash = '“–”: no acceptance (or rejection) is possible yet at that step.';
   const truncated = (index: number) => (index < 0 ? null : index);

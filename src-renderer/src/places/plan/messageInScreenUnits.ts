@@ -3,15 +3,15 @@
  * Its messages are rewritten into the units the engineer typed, so "1" and "0.5" are not answered
  * with "0.01" and "0.005".
  */
-import type { AnyPlanSpec } from '../../../../src-main/engine/index.js';
+import type { PlanSpec } from '../../../../src-main/engine/index.js';
 
-const percentNames = (model: AnyPlanSpec['model']) => (model === 'passfail' ? ['p0', 'p1', 'alpha', 'beta'] : ['alpha', 'beta']);
+const percentNames = (model: PlanSpec['model']) => (model === 'passfail' ? ['p0', 'p1', 'alpha', 'beta'] : ['alpha', 'beta']);
 
 function percent(fraction: number): string {
   return `${Number((fraction * 100).toPrecision(6))} %`;
 }
 
-export function messageInScreenUnits(message: string, model: AnyPlanSpec['model']): string {
+export function messageInScreenUnits(message: string, model: PlanSpec['model']): string {
   let rewritten = message;
   for (const name of percentNames(model)) {
     rewritten = rewritten.replace(new RegExp(`\\b${name} = (-?[0-9.]+(?:e-?[0-9]+)?)`, 'g'), (_, value: string) => `${name} = ${percent(Number(value))}`);

@@ -3,7 +3,7 @@
  * (percent, items). Only rearranging and scaling: every value comes from the engine.
  */
 import type uPlot from 'uplot';
-import type { LinearDesign as PlanDesign } from './designKinds';
+import type { LinearDesign as LinearCountDesign } from './designKinds';
 import type { QualityScale } from './qualityScale';
 
 /** One figure of the Plan place: its options and columns for the chart wrapper. */
@@ -20,7 +20,7 @@ export interface PlanChart {
 export const none: uPlot.AlignedData = [[]];
 
 /** OC curves in percent accepted, with the two design points (p0, 1 - alpha) and (p1, beta) as markers. */
-export function ocColumns(design: PlanDesign | null, scale: QualityScale): uPlot.AlignedData {
+export function ocColumns(design: LinearCountDesign | null, scale: QualityScale): uPlot.AlignedData {
   if (!design) return none;
   const designPoints = new Map([
     [design.hypotheses.theta0, 100 * (1 - design.risks.alpha)],
@@ -43,7 +43,7 @@ export function ocColumns(design: PlanDesign | null, scale: QualityScale): uPlot
 }
 
 /** ASN curves in items, with the single sampling plan's n as a flat reference. */
-export function asnColumns(design: PlanDesign | null, scale: QualityScale): uPlot.AlignedData {
+export function asnColumns(design: LinearCountDesign | null, scale: QualityScale): uPlot.AlignedData {
   if (!design) return none;
   const x = Float64Array.from(design.curve, (point) => point.theta * scale.factor);
   const wald = Float64Array.from(design.curve, (point) => point.asnWald);
@@ -66,7 +66,7 @@ export function curvesWithMarks(thetas: readonly number[], curves: readonly (rea
 }
 
 /** Acceptance and rejection numbers per item count, and Wald's straight lines they round. */
-export function boundaryColumns(design: PlanDesign | null): uPlot.AlignedData {
+export function boundaryColumns(design: LinearCountDesign | null): uPlot.AlignedData {
   if (!design || design.limits.length === 0) return none;
   const { slope, h1, h2 } = design.boundaries;
   const rows = design.limits;
@@ -84,7 +84,7 @@ export function boundaryColumns(design: PlanDesign | null): uPlot.AlignedData {
  * (The distribution itself is spiky for pass/fail plans, since acceptance is possible only at
  * some item counts; its running sum reads as "half the runs stop by item 24".)
  */
-export function stopColumns(design: PlanDesign | null): uPlot.AlignedData {
+export function stopColumns(design: LinearCountDesign | null): uPlot.AlignedData {
   if (!design) return none;
   const { h0, h1 } = design.sampleSizeDistribution;
   const reach = Math.max(design.exact.quantilesH0.p99 ?? h0.length, design.exact.quantilesH1.p99 ?? h1.length);

@@ -3,8 +3,8 @@
  * numbered so the main side can drop a request a newer one has overtaken, and only the newest
  * answer is ever shown.
  */
-import type { PlanDesign } from '../../../../src-main/api/channels/planChannels';
-import type { AnyPlanSpec } from '../../../../src-main/engine/index';
+import type { LinearCountDesign } from '../../../../src-main/api/channels/planChannels';
+import type { PlanSpec } from '../../../../src-main/engine/index';
 import { request } from '../../lib/channelClient';
 import { latestOnly } from '../../lib/latestOnly';
 import { messageInScreenUnits } from './messageInScreenUnits';
@@ -20,17 +20,17 @@ export interface DesignProblem {
  * Points on the OC and ASN curves. A graded plan's exact recursion runs once per point and takes
  * seconds at 81, so its curves are drawn with fewer points (still smooth over its family).
  */
-function curvePointsFor(spec: AnyPlanSpec): number {
+function curvePointsFor(spec: PlanSpec): number {
   return spec.model === 'graded' ? 31 : 81;
 }
 
-type Request = { spec: AnyPlanSpec; suggestTruncation: boolean };
+type Request = { spec: PlanSpec; suggestTruncation: boolean };
 
 export class PlanDesignState {
   /** The newest design, for `spec`; null while the inputs do not make a plan. */
-  design = $state.raw<PlanDesign | null>(null);
+  design = $state.raw<LinearCountDesign | null>(null);
   /** The spec the design belongs to (truncation resolved when suggested). */
-  spec = $state.raw<AnyPlanSpec | null>(null);
+  spec = $state.raw<PlanSpec | null>(null);
   problem = $state.raw<DesignProblem | null>(null);
   /** The problem was found in the form (not by the engine): gone as soon as the form reads as a plan. */
   private problemFromForm = false;

@@ -3,7 +3,7 @@
  * the plan it stands for once every field reads as a number. Ranges (p0 < p1, alpha + beta < 1)
  * are the engine's to judge; this only reads the units.
  */
-import type { AnyPlanSpec } from '../../../../src-main/engine/index';
+import type { PlanSpec } from '../../../../src-main/engine/index';
 import { decimalText, parseDecimal } from '../../lib/decimalText';
 import { readGraded, readLifetime, readMeasurement, type GradeRow, type LifetimeTexts, type MeasurementTexts, type ModelField } from './modelDrafts';
 import { qualityScale, type CountUnit, type ModelName } from './qualityScale';
@@ -14,7 +14,7 @@ export type FitMode = 'wald' | 'exact';
 
 /** A plan the engine may be asked about, or the first field that is not yet a number. */
 export type DraftReading =
-  | { ok: true; spec: AnyPlanSpec; suggestTruncation: boolean }
+  | { ok: true; spec: PlanSpec; suggestTruncation: boolean }
   | { ok: false; field: DraftField; message: string };
 
 /** Which input an engine parameter name belongs to. */
@@ -77,7 +77,7 @@ export class PlanDraft {
   }
 
   /** Fills the form from a saved or imported plan. */
-  load(spec: AnyPlanSpec, name: string): void {
+  load(spec: PlanSpec, name: string): void {
     this.name = name;
     this.model = spec.model;
     this.producerRisk = decimalText(spec.alpha * 100);
@@ -153,7 +153,7 @@ export class PlanDraft {
     const low = numbers.acceptable! / scale.factor;
     const high = numbers.rejectable! / scale.factor;
     const common = { ...risks, truncation, fit: this.fit };
-    const spec: AnyPlanSpec =
+    const spec: PlanSpec =
       model === 'passfail' ? { model: 'passfail', p0: low, p1: high, ...common } : { model: 'count', lambda0: low, lambda1: high, ...common };
     return { ok: true, spec, suggestTruncation: this.truncationMode === 'suggested' };
   }

@@ -3,7 +3,7 @@
  * the form came from and its versions. Every change goes through the plan channels.
  */
 import type { SavedPlan, SourceChoice } from '../../../../src-main/api/channels/planChannels';
-import type { AnyPlanSpec } from '../../../../src-main/engine/index';
+import type { PlanSpec } from '../../../../src-main/engine/index';
 import { request } from '../../lib/channelClient';
 
 export type SourceKind = SourceChoice['kind'];
@@ -31,7 +31,7 @@ export class PlanLibrary {
     source: SourceTarget;
     part?: string | null;
     characteristic?: string | null;
-    spec: AnyPlanSpec;
+    spec: PlanSpec;
     asNew: boolean;
   }): Promise<SavedPlan | null> {
     const id = input.asNew ? undefined : this.current?.id;
@@ -73,10 +73,10 @@ export class PlanLibrary {
 }
 
 /** Whether two specs describe the same plan (the form against a saved version). */
-export function sameSpec(a: AnyPlanSpec | null, b: AnyPlanSpec | null): boolean {
+export function sameSpec(a: PlanSpec | null, b: PlanSpec | null): boolean {
   if (a === null || b === null) return a === b;
   // Defaults written out, so a saved version and the form compare equal whether or not they spell them.
-  const key = (spec: AnyPlanSpec) => {
+  const key = (spec: PlanSpec) => {
     const filled: Record<string, unknown> = { ...spec };
     filled.truncation ??= null;
     if (spec.model === 'passfail' || spec.model === 'count') filled.fit ??= 'wald';

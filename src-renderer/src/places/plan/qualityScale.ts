@@ -2,9 +2,9 @@
  * How quality is written for each data model: pass/fail as percent nonconforming, counts as
  * nonconformities per unit or per 100 units. The engine always takes fractions and rates per unit.
  */
-import type { AnyPlanSpec } from '../../../../src-main/engine/index';
+import type { PlanSpec } from '../../../../src-main/engine/index';
 
-export type ModelName = AnyPlanSpec['model'];
+export type ModelName = PlanSpec['model'];
 export type CountUnit = 'perUnit' | 'per100';
 
 export interface QualityScale {

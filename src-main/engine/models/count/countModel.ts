@@ -1,0 +1,20 @@
+import type { CountSpec } from '../../spec.js';
+import { linearCountModel } from '../linearCountModel.js';
+
+/** The nonconformities counted on one unit. */
+export type CountObservation = number;
+
+/**
+ * Nonconformities per unit: the cumulative count is the number of nonconformities.
+ *
+ * Method: z = x ln(lambda1/lambda0) - (lambda1 - lambda0) per unit (countDefinition).
+ * References: Wald, A. (1947), Sequential Analysis, ch. 5 (Poisson case).
+ */
+export const countModel = linearCountModel<CountSpec, CountObservation>('count', {
+  labels: { title: 'count', quality: 'lambda', hypotheses: ['lambda0', 'lambda1'], entry: ['unit', 'units'] },
+  problem: (result) =>
+    typeof result === 'number' && Number.isInteger(result) && result >= 0
+      ? null
+      : `a count plan takes a whole number of nonconformities (0 or more), not ${JSON.stringify(result)}`,
+  count: (result) => result,
+});

@@ -1,0 +1,79 @@
+/**
+ * The sequential model of a linear-count definition (pass/fail, count): its evidence is the item
+ * count n and the cumulative count, decided on the integer acceptance and rejection numbers.
+ */
+import { linearCountLimitRows, designLinearCountPlan } from '../linearCountDesign.js';
+import type { LinearCountDesign, LimitRow } from '../planDesignTypes.js';
+import { decideLinearCount, linearCountLiveState, type LinearCountLiveState } from '../linearCountLiveState.js';
+import { linearCountWork } from './linearCountWork.js';
+import { resolvePlan, type ResolvedPlan } from '../resolvePlan.js';
+import type { LinearCountSpec } from '../spec.js';
+import type { EvidenceDecision, ModelLabels, SequentialModel } from './sequentialModel.js';
+
+/** n items and their cumulative count (nonconforming items or nonconformities). */
+export interface LinearCountEvidence {
+  readonly n: number;
+  readonly total: number;
+}
+
+/** The decision on a pass/fail or count run (no `model` field: the shape the run service has always shown). */
+export interface LinearCountEvidenceState extends EvidenceDecision {
+  readonly model?: undefined;
+}
+
+export interface LinearCountShapes<S extends LinearCountSpec, O> {
+  spec: S;
+  plan: ResolvedPlan;
+  evidence: LinearCountEvidence;
+  observation: O;
+  state: LinearCountEvidenceState;
+  live: LinearCountLiveState;
+  row: LimitRow;
+  design: LinearCountDesign;
+}
+
+/** What a linear-count model adds to the shared integer-line machinery: its labels and how a result counts. */
+export interface LinearCountEntry<O> {
+  labels: ModelLabels;
+  /** The sentence for a result this model does not take, or null. */
+  problem(observation: unknown): string | null;
+  /** What one result adds to the cumulative count. */
+  count(observation: O): number;
+}
+
+/**
+ * Builds the sequential model of a linear-count spec from its entry rules.
+ *
+ * Method: LLR = countWeight total - itemOffset n; decision and look-ahead on the integer lines
+ * (decideLinearCount, linearCountLiveState), design by designLinearCountPlan.
+ * References: Wald, A. (1947), Sequential Analysis, ch. 3 and 5; NIST/SEMATECH e-Handbook §6.2.6.
+ */
+export function linearCountModel<S extends LinearCountSpec, O>(
+  name: S['model'],
+  entry: LinearCountEntry<O>,
+): SequentialModel<LinearCountShapes<S, O>> {
+  return {
+    name,
+    labels: entry.labels,
+    plan: (spec) => resolvePlan(spec),
+    emptyEvidence: () => ({ n: 0, total: 0 }),
+    observationProblem: (_plan, observation) => entry.problem(observation),
+    canonical: (_plan, observation) => observation,
+    observe: (_plan, evidence, observation) => ({ n: evidence.n + 1, total: evidence.total + entry.count(observation) }),
+    llrStep: (plan, _evidence, observation) => plan.countWeight * entry.count(observation) - plan.itemOffset,
+    state(plan, evidence) {
+      const decided = decideLinearCount(plan.spec, evidence.n, evidence.total);
+      return {
+        decision: decided.decision,
+        n: evidence.n,
+        total: evidence.total,
+        llr: decided.llr,
+        rule: decided.decision === 'continue' ? null : decided.rule,
+      };
+    },
+    liveState: (plan, state) => linearCountLiveState(plan.spec, state.n, state.total),
+    limitRows: (plan, horizon) => linearCountLimitRows(plan.lines, plan.lines.truncation === null ? horizon : Math.min(horizon, plan.lines.truncation)),
+    estimateWork: (spec, curvePoints) => linearCountWork(spec, curvePoints),
+    design: (spec, options = {}) => designLinearCountPlan(spec, options),
+  };
+}
