@@ -4,7 +4,7 @@ import { writeFileAtomic } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { checkedDataDirectory, dataDirectoryFlags } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, out: flag.path('a file to write the archive to'), json: flag.switch() };
 

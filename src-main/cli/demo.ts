@@ -3,7 +3,7 @@ import { DataFolderNotEmptyError, describeDemo, seedDemo } from '../demo/index.j
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { checkedDataDirectory, dataDirectoryFlags } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, seed: flag.integer(0, 2 ** 32 - 1), json: flag.switch() };
 

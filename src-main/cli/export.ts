@@ -8,7 +8,7 @@ import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
 import { recordInputFor } from './record.js';
-import { dataDirectoryFlags } from './run.js';
+import { dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.id('run'), out: flag.path('a file path, or - for standard output') };
 

@@ -3,12 +3,13 @@
  * After each entry is written and fsync'd it prints {"seq": N, "state": ...}; it stops right after
  * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
  */
-import type { RunService } from '../inspection/index.js';
+import { RunUnreadableError, type RunService } from '../inspection/index.js';
 import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { dataDirectoryFlags, requireExistingRun, runServiceFor } from './run.js';
+import { dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
+import { runServiceFor } from './run.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.id('run'), actor: flag.text('The name of who made the entry'), json: flag.switch() };
 
@@ -20,9 +21,21 @@ export interface FeedOptions {
 
 /** Feed `lines` into a run; resolves to the exit code. Each line's entry is durable before the next is read. */
 export async function feedLines(service: RunService, lines: AsyncIterable<string>, options: FeedOptions, io: CliIo): Promise<number> {
-  const opened = await service.openRun(options.runId);
+  let opened;
+  try {
+    opened = await service.openRun(options.runId);
+  } catch (error) {
+    if (!(error instanceof RunUnreadableError)) throw error;
+    io.stderr(`tallyline feed: ${error.message}\n`);
+    return EXIT_FAILURE;
+  }
   if (!opened.writable) {
-    io.stderr(`tallyline feed: run ${options.runId} cannot be written: ${opened.problems[0]?.problem ?? 'it is open elsewhere'}\n`);
+    const damaged = opened.problems.find((problem) => problem.kind === 'tampered');
+    io.stderr(
+      damaged === undefined
+        ? `tallyline feed: run ${options.runId} cannot be written: it is open elsewhere\n`
+        : `tallyline feed: run ${options.runId} is damaged from seq ${damaged.seq} (${damaged.problem}); it can be read, never written\n`,
+    );
     return EXIT_FAILURE;
   }
   if (opened.run.status === 'closed') {

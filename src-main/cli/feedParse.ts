@@ -6,9 +6,9 @@
  */
 import type { PlanSpec } from '../engine/index.js';
 import { gradeIndex, type ItemResult } from '../inspection/index.js';
+import { NUMBER_TEXT } from './flags.js';
 
 const PASS_FAIL_WORDS: Record<string, ItemResult> = { pass: 'pass', fail: 'fail', '0': 'pass', '1': 'fail' };
-const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 export type FeedLine = { result: ItemResult } | { problem: string } | null;
 

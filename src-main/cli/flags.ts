@@ -31,7 +31,8 @@ export interface Flag<T> {
 type FlagTable = Record<string, Flag<unknown>>;
 export type FlagValues<F extends FlagTable> = { [K in keyof F]?: F[K] extends Flag<infer T> ? T : never };
 
-const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+/** A decimal number as a user types it (sign, digits, point, exponent): what every number flag and input line accepts. */
+export const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Thrown inside a flag's parse when the text fails its schema; parseFlags adds the flag name. */
 class FlagValueError extends Error {}

@@ -3,7 +3,7 @@
  * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
  */
 import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
-import { UsageError, flag, rejectFlags, requireFlag } from './flags.js';
+import { NUMBER_TEXT, UsageError, flag, rejectFlags, requireFlag } from './flags.js';
 import type { Flag } from './flags.js';
 
 export const planFlags = {
@@ -62,7 +62,6 @@ function linearCountSpecFromFlags(values: Record<string, unknown>): LinearCountS
 
 // ---- Flags of the measurement, lifetime and graded models. ----
 
-const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 function numberFlag(name: string, allowed: string, accept: (value: number) => boolean): Flag<number> {
   return {

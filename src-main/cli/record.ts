@@ -4,12 +4,12 @@
  */
 import { decisionRecordForRun } from '../record/fromRun.js';
 import { writeDecisionRecord } from '../record/renderDecisionRecord.js';
-import { RunJournalUnverifiedError } from '../record/runJournalRead.js';
+import { RunJournalUnverifiedError, RunNotFoundError } from '../inspection/index.js';
 import type { CliIo, Command } from './command.js';
 import type { DecisionRecordInput } from '../record/recordInput.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
-import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.id('run'), out: flag.path('a file path ending in .pdf') };
 
@@ -45,7 +45,7 @@ export async function recordInputFor(args: readonly string[], runId: string, nam
   try {
     return await decisionRecordForRun(dataDirectory, runId);
   } catch (error) {
-    if (error instanceof RunJournalUnverifiedError) {
+    if (error instanceof RunNotFoundError || error instanceof RunJournalUnverifiedError) {
       io.stderr(`tallyline ${name}: ${error.message}\n`);
       return null;
     }

@@ -4,7 +4,7 @@ import { ArchiveRefusedError, RestoreBlockedError, restoreArchive } from '../bac
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { checkedDataDirectory, dataDirectoryFlags } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, from: flag.path('an archive written by tallyline backup'), json: flag.switch() };
 

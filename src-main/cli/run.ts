@@ -2,57 +2,27 @@
  * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
-import { stat } from 'node:fs/promises';
-import os from 'node:os';
 import { checkPlanSpec, type PlanSpec } from '../engine/index.js';
-import { createRunService, type ItemResult, type RunService, type RunState, type RunView } from '../inspection/index.js';
-import { PlanRepository, SourceRepository, layout, resolveDataDirectory } from '../store/index.js';
+import {
+  OUTCOME_WORDS,
+  RunNotFoundError,
+  createRunCatalogue,
+  runView,
+  type DecisionEvent,
+  type ItemResult,
+  type RunService,
+  type RunState,
+  type RunView,
+  createRunService,
+} from '../inspection/index.js';
+import { PlanRepository, SourceRepository } from '../store/index.js';
 import { visibleJson, visibleText } from '../store/textFields.js';
 import type { Command } from './command.js';
-import { CliFailure, EXIT_OK } from './command.js';
+import { CliFailure, EXIT_FAILURE, EXIT_OK } from './command.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
 import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
 import { formatNumber } from './table.js';
-
-/** `--data-dir DIR`, accepted by every run command (see resolveDataDirectory). */
-export const dataDirectoryFlags = { 'data-dir': flag.path('a folder') };
-
-/** The data directory for these args: --data-dir, then TALLYLINE_DATA, then the OS app-data folder. */
-export function dataDirectoryFor(args: readonly string[]): string {
-  return resolveDataDirectory({ argv: args, env: process.env, platform: process.platform, home: os.homedir() });
-}
-
-/**
- * The data directory for these args, checked before anything reads or writes it: it must be a
- * folder; with `mayCreate` it may also not exist yet (the first run, the demo, a restore).
- *
- * @throws CliFailure naming the folder and what is wrong with it.
- */
-export async function checkedDataDirectory(args: readonly string[], mayCreate = false): Promise<string> {
-  const dataDirectory = dataDirectoryFor(args);
-  let stats;
-  try {
-    stats = await stat(dataDirectory);
-  } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    if (code === 'ENOENT' && mayCreate) return dataDirectory;
-    if (code === 'ENOENT') throw new CliFailure(`the data folder ${dataDirectory} does not exist (give --data-dir an existing folder)`);
-    if (code === 'ENOTDIR') throw new CliFailure(`the data folder ${dataDirectory} is inside a file, not a folder`);
-    throw error;
-  }
-  if (!stats.isDirectory()) throw new CliFailure(`the data folder ${dataDirectory} is a file, not a folder`);
-  return dataDirectory;
-}
-
-/** Refuses a run id with no journal in the data folder, before anything opens it. */
-export async function requireExistingRun(dataDirectory: string, runId: string): Promise<void> {
-  try {
-    await stat(layout.runJournal(dataDirectory, runId));
-  } catch (error) {
-    if ((error as NodeJS.ErrnoException).code === 'ENOENT') throw new CliFailure(`there is no run ${runId} in the data folder ${dataDirectory}`);
-    throw error;
-  }
-}
 
 /** The checked data directory for these args, and a run service on it that the caller must close. */
 export async function runServiceFor(args: readonly string[], mayCreate = false): Promise<{ dataDirectory: string; service: RunService }> {
@@ -153,15 +123,30 @@ const showFlags = { ...dataDirectoryFlags, run: flag.id('run'), json: flag.switc
 
 /**
  * The `run show --json` shape: {run, plan, entries: [{seq, time, result, voided}], state: {decision, n, total, llr}},
- * the state with its model's fields for measurement (sum, mean), lifetime (time, failures) and graded (counts, demerits).
+ * the state with its model's fields for measurement (sum, mean), lifetime (time, failures) and graded (counts, demerits);
+ * then outcome (open, accepted, rejected, reopened, damaged), history (every decision and reopening), problems
+ * ([{seq, line, problem, kind}], empty when the journal verifies), writable (false for a damaged journal) and
+ * fingerprint (SHA-256 of the journal's last intact line).
  */
-export function showJson(view: RunView): unknown {
+export function showJson(view: RunView, history: readonly DecisionEvent[]): unknown {
   return {
     run: view.run,
     plan: view.plan,
     entries: view.entries.map((entry) => ({ seq: entry.seq, time: entry.time, result: entry.result, voided: entry.voided })),
     state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr, ...modelFields(view.state) },
+    outcome: view.outcome,
+    history,
+    problems: view.problems,
+    writable: view.writable,
+    fingerprint: view.run.fingerprint,
   };
+}
+
+/** A decision or a reopening as a line of `run show`. */
+function historyText(event: DecisionEvent): string {
+  return event.kind === 'decision'
+    ? `  seq ${event.seq}  ${event.at}  ${event.actor}: ${event.decision} (${event.rule})`
+    : `  seq ${event.seq}  ${event.at}  ${event.actor}: ${OUTCOME_WORDS.reopened}: ${event.reason}`;
 }
 
 function modelFields(state: RunState): Record<string, unknown> {
@@ -194,29 +179,39 @@ export const showCommand: Command = {
   async run(args, io) {
     const values = parseFlags(args, showFlags);
     const runId = requireFlag<string>(values, 'run', showFlags);
-    const { dataDirectory, service } = await runServiceFor(args);
+    const dataDirectory = await checkedDataDirectory(args);
+    await requireExistingRun(dataDirectory, runId);
+    let read;
     try {
-      await requireExistingRun(dataDirectory, runId);
-      const view = await service.readRun(runId);
-      if (values.json === true) {
-        io.stdout(`${visibleJson(showJson(view))}\n`);
-      } else {
-        const { run, state } = view;
-        // Text from the journal is escaped: records written before the printable rule may hold control characters.
-        io.stdout(
-          [
-            `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
-            `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
-            ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
-            ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
-          ]
-            .map(visibleText)
-            .join('\n') + '\n',
-        );
-      }
-      return EXIT_OK;
-    } finally {
-      await service.close();
+      read = await createRunCatalogue(dataDirectory).readRun(runId);
+    } catch (error) {
+      if (!(error instanceof RunNotFoundError)) throw error;
+      io.stderr(`tallyline run show: ${error.message}\n`);
+      return EXIT_FAILURE;
     }
+    if (read.replay === null) {
+      io.stderr(`tallyline run show: run ${runId} is damaged from seq ${read.damage?.firstBadSeq ?? 0} (${read.damage?.problem ?? 'no header'}); nothing of it can be read\n`);
+      return EXIT_FAILURE;
+    }
+    const view = runView(read.replay, { writable: read.damage === null, problems: [...read.problems], recovered: null, fingerprint: read.fingerprint, damage: read.damage });
+    if (values.json === true) {
+      io.stdout(`${visibleJson(showJson(view, read.history))}\n`);
+    } else {
+      const { run, state } = view;
+      io.stdout(
+        [
+          `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
+          `Outcome: ${OUTCOME_WORDS[view.outcome]}${read.damage === null ? '' : ` from seq ${read.damage.firstBadSeq}; the entries before it are shown, read-only`}`,
+          `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
+          ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
+          ...(read.history.length === 0 ? [] : ['Decisions:', ...read.history.map(historyText)]),
+          ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
+        ]
+          // Text from the journal is escaped: records written before the printable rule may hold control characters.
+          .map(visibleText)
+          .join('\n') + '\n',
+      );
+    }
+    return EXIT_OK;
   },
 };

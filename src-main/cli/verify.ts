@@ -5,11 +5,12 @@
  */
 import { readFile } from 'node:fs/promises';
 import { fingerprintFromPdf, recordFingerprintMismatches } from '../record/fingerprintFromPdf.js';
-import { layout, verifyJournal, type JournalVerification } from '../store/index.js';
+import { RunNotFoundError, createRunCatalogue } from '../inspection/index.js';
+import { anchorHolds, type JournalVerification } from '../store/index.js';
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
-import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './run.js';
+import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 
 const flags = { ...dataDirectoryFlags, run: flag.id('run'), pdf: flag.path('a decision record PDF'), json: flag.switch() };
 
@@ -60,7 +61,23 @@ export const command: Command = {
     const runId = requireFlag<string>(values, 'run', flags);
     const dataDirectory = await checkedDataDirectory(args);
     await requireExistingRun(dataDirectory, runId);
-    const report = await verifyJournal(layout.runJournal(dataDirectory, runId));
+    let report: JournalVerification;
+    try {
+      const read = await createRunCatalogue(dataDirectory).readRun(runId);
+      // The chain, the anchor, and every entry replaying as one this app writes: a re-hashed forgery of a result fails here.
+      const anchor = read.anchor ?? { status: 'missing' as const, anchor: null };
+      report = {
+        ok: read.problems.length === 0 && anchorHolds(anchor.status),
+        entries: read.entriesRead,
+        fingerprint: read.fingerprint,
+        problems: [...read.problems],
+        anchor: { status: anchor.status, ...(anchor.anchor ?? {}) },
+      };
+    } catch (error) {
+      if (!(error instanceof RunNotFoundError)) throw error;
+      io.stderr(`tallyline verify: ${error.message}\n`);
+      return EXIT_FAILURE;
+    }
     const record = values.pdf === undefined ? null : await checkRecord(values.pdf, report.fingerprint);
     const ok = report.ok && (record?.matches ?? true);
     if (values.json === true) {

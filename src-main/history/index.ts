@@ -1,3 +1,2 @@
 /** The history of sources: their runs summed up. */
 export * from './sourceSummary.js';
-export { historyRunReader } from './historyRuns.js';

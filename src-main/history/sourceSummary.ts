@@ -3,29 +3,11 @@
  * nonconforming found, the decisions over time, and the pooled fraction with its caveat.
  * Pure: takes the runs as plain data, reads nothing.
  */
-import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
+import type { LinearCountSpec } from '../engine/index.js';
+import type { RunRow } from '../inspection/runCatalogue.js';
 
-/** One run as the summary needs it. */
-export interface HistoryRun {
-  readonly id: string;
-  /** When the run was started (ISO 8601). */
-  readonly startedAt: string;
-  readonly lot: string;
-  readonly planName: string;
-  /** From the plan version, when it named them. */
-  readonly part: string | null;
-  readonly characteristic: string | null;
-  readonly model: PlanSpec['model'];
-  /** Closed with a decision, or still open (never decided, or reopened by an override). */
-  readonly status: 'open' | 'closed';
-  readonly decision: 'continue' | 'accept' | 'reject';
-  /** Items inspected (voided entries not counted). */
-  readonly itemsInspected: number;
-  /** Nonconforming items (pass/fail) or nonconformities (count) found; 0 for the other models. */
-  readonly nonconformingFound: number;
-  /** False when the run's journal does not verify; such a run is counted but flagged. */
-  readonly verified: boolean;
-}
+/** One run as the summary needs it: the catalogue's row (inspection/runCatalogue.ts) carries these fields. */
+export type SummaryRun = Pick<RunRow, 'runId' | 'outcome' | 'startedAt' | 'model' | 'itemsInspected' | 'nonconformingFound'>;
 
 /** The pooled figure of one data model: sums over the decided runs of that model. */
 export interface PooledFigure {
@@ -51,10 +33,10 @@ export interface SourceSummary {
   readonly runs: number;
   readonly accepted: number;
   readonly rejected: number;
-  /** Runs without a standing decision. */
+  /** Runs without a standing decision: open, or reopened after a decision. */
   readonly open: number;
-  /** Runs whose journal does not verify. */
-  readonly unverified: number;
+  /** Runs whose journal is damaged (counted with their good entries). */
+  readonly damaged: number;
   /** Over every run, decided or not. */
   readonly itemsInspected: number;
   readonly nonconformingFound: number;
@@ -74,20 +56,21 @@ export const POOLING_CAVEAT =
 
 const UNITS = { passfail: 'fraction nonconforming', count: 'nonconformities per item' } as const;
 
-function isDecided(run: HistoryRun): run is HistoryRun & { decision: 'accept' | 'reject' } {
-  return run.status === 'closed' && run.decision !== 'continue';
+function isDecided(run: SummaryRun): boolean {
+  return run.outcome === 'accepted' || run.outcome === 'rejected';
 }
 
 /**
- * Sums a source's runs. A run counts as accepted or rejected only while it stands closed with that
- * decision; an open run (not yet decided, or reopened after its decision by an override) counts as
- * open. The pooled figure uses decided runs only, per data model.
+ * Sums a source's runs. A run counts as accepted or rejected only while that decision stands; an
+ * open or reopened run counts as open, a damaged one as damaged. The pooled figure uses decided
+ * runs only, per data model.
  */
-export function summariseSource(runs: readonly HistoryRun[]): SourceSummary {
-  const byStart = [...runs].sort((a, b) => a.startedAt.localeCompare(b.startedAt));
+export function summariseSource(runs: readonly SummaryRun[]): SourceSummary {
+  const started = (run: SummaryRun) => (run.startedAt === null ? -Infinity : Date.parse(run.startedAt));
+  const byStart = [...runs].sort((a, b) => started(a) - started(b) || 0);
   const decided = byStart.filter(isDecided);
-  const accepted = decided.filter((run) => run.decision === 'accept').length;
-  const sum = (list: readonly HistoryRun[], key: 'itemsInspected' | 'nonconformingFound') =>
+  const accepted = decided.filter((run) => run.outcome === 'accepted').length;
+  const sum = (list: readonly SummaryRun[], key: 'itemsInspected' | 'nonconformingFound') =>
     list.reduce((total, run) => total + run[key], 0);
 
   // Only fractions and rates per item pool; measurements, test times and grades have no such figure.
@@ -110,9 +93,9 @@ export function summariseSource(runs: readonly HistoryRun[]): SourceSummary {
   let acceptedSoFar = 0;
   let rejectedSoFar = 0;
   for (const run of decided) {
-    if (run.decision === 'accept') acceptedSoFar += 1;
+    if (run.outcome === 'accepted') acceptedSoFar += 1;
     else rejectedSoFar += 1;
-    trend.time.push(Date.parse(run.startedAt) / 1000);
+    trend.time.push(started(run) / 1000);
     trend.acceptedSoFar.push(acceptedSoFar);
     trend.rejectedSoFar.push(rejectedSoFar);
   }
@@ -121,11 +104,11 @@ export function summariseSource(runs: readonly HistoryRun[]): SourceSummary {
     runs: runs.length,
     accepted,
     rejected: decided.length - accepted,
-    open: runs.length - decided.length,
-    unverified: runs.filter((run) => !run.verified).length,
+    open: runs.filter((run) => run.outcome === 'open' || run.outcome === 'reopened').length,
+    damaged: runs.filter((run) => run.outcome === 'damaged').length,
     itemsInspected: sum(runs, 'itemsInspected'),
     nonconformingFound: sum(runs, 'nonconformingFound'),
-    firstRunAt: byStart[0]?.startedAt ?? null,
+    firstRunAt: byStart.find((run) => run.startedAt !== null)?.startedAt ?? null,
     lastRunAt: byStart.at(-1)?.startedAt ?? null,
     pooled,
     trend,

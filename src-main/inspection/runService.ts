@@ -1,9 +1,9 @@
 /**
- * The run service: start runs, record results, void, override after a decision, list and open runs.
- * Every change is one journal append, acknowledged only once it is on disk; the run closes itself
- * with the engine's decision and rule as soon as the statistics reach one.
+ * The run service: start runs, record results, void, override after a decision, open runs for
+ * writing. Reading and listing runs is the catalogue's (runCatalogue.ts). Every change is one
+ * journal append, acknowledged only once it is on disk; the run closes itself with the engine's
+ * decision and rule as soon as the statistics reach one.
  */
-import { readFile } from 'node:fs/promises';
 import type { PlanSpec } from '../engine/index.js';
 import {
   JournalBusyError,
@@ -11,17 +11,16 @@ import {
   JournalWriter,
   PlanRepository,
   SourceRepository,
-  analyseJournal,
   checkId,
-  folderNames,
   layout,
   newId,
-  type JournalProblem,
   type QuarantineRecord,
 } from '../store/index.js';
-import { RunReplay } from './runReplay.js';
+import { createRunCatalogue, RunUnreadableError, type RunCatalogue } from './runCatalogue.js';
+import { RunJournalContentError, RunReplay } from './runReplay.js';
+import { runView } from './runView.js';
 import { canonicalResult } from './runState.js';
-import type { ItemResult, RunEntryView, RunState, RunSummary, RunView } from './runTypes.js';
+import type { ItemResult, RunEntryView, RunState, RunView } from './runTypes.js';
 
 export interface StartRunInput {
   readonly planId: string;
@@ -85,6 +84,8 @@ export interface RunServiceOptions {
    * Letting go when idle lets another writer, such as a station's `feed`, take the run over.
    */
   readonly idleReleaseMs?: number;
+  /** The catalogue read-only views come from; one of its own when not given. */
+  readonly catalogue?: RunCatalogue;
 }
 
 interface OpenRun {
@@ -104,6 +105,7 @@ export function createRunService(options: RunServiceOptions) {
   const queues = new Map<string, Promise<unknown>>();
   const idleTimers = new Map<string, NodeJS.Timeout>();
   const idleReleaseMs = options.idleReleaseMs ?? 30_000;
+  const catalogue = options.catalogue ?? createRunCatalogue(dataDirectory);
 
   /** Closes a run's journal once it has not been used for idleReleaseMs; every use restarts the wait. */
   function releaseWhenIdle(runId: string): void {
@@ -135,11 +137,15 @@ export function createRunService(options: RunServiceOptions) {
     }
     try {
       const opened = await JournalWriter.open(layout.runJournal(dataDirectory, runId), clock);
-      const handle: OpenRun = {
-        writer: opened.writer,
-        replay: RunReplay.fromEntries(opened.entries),
-        recovered: opened.recovered?.record ?? null,
-      };
+      let replay: RunReplay;
+      try {
+        replay = RunReplay.fromEntries(opened.entries);
+      } catch (error) {
+        // The chain holds but an entry is not one this app writes: read-only, like a broken chain.
+        await opened.writer.close();
+        throw error instanceof RunJournalContentError ? new RunNotWritableError(runId, error.message) : error;
+      }
+      const handle: OpenRun = { writer: opened.writer, replay, recovered: opened.recovered?.record ?? null };
       open.set(runId, handle);
       releaseWhenIdle(runId);
       return handle;
@@ -168,37 +174,11 @@ export function createRunService(options: RunServiceOptions) {
     if (handle.replay.status === 'closed') throw new RunClosedError(runId, handle.replay.lastClose?.decision ?? 'decided');
   }
 
-  function view(replay: RunReplay, extra: Pick<RunView, 'writable' | 'problems' | 'recovered'> & { fingerprint: string | null }): RunView {
-    const state = stateOf(replay);
-    const close = replay.status === 'closed' ? replay.lastClose : null;
-    return {
-      run: {
-        ...replay.header.run,
-        status: replay.status,
-        sourceName: replay.header.source.name,
-        closedAt: close?.time ?? null,
-        decision: close?.decision ?? null,
-        rule: close?.rule ?? null,
-        fingerprint: extra.fingerprint,
-      },
-      plan: replay.header.plan,
-      entries: replay.results.map((entry) => ({ ...entry })),
-      state,
-      writable: extra.writable,
-      problems: extra.problems,
-      recovered: extra.recovered,
-    };
-  }
-
-  /** A read-only picture of a run straight from its file (used when it cannot be opened for writing). */
-  async function readOnly(runId: string): Promise<{ replay: RunReplay; problems: JournalProblem[]; fingerprint: string | null }> {
-    const analysis = analyseJournal(await readFile(layout.runJournal(dataDirectory, runId)));
-    return { replay: RunReplay.fromEntries(analysis.entries), problems: analysis.problems, fingerprint: analysis.fingerprint };
-  }
-
+  /** A read-only picture of a run from the catalogue (used when it cannot be opened for writing). */
   async function readOnlyView(runId: string): Promise<RunView> {
-    const found = await readOnly(runId);
-    return view(found.replay, { writable: false, problems: found.problems, recovered: null, fingerprint: found.fingerprint });
+    const read = await catalogue.readRun(runId);
+    if (read.replay === null) throw new RunUnreadableError(runId, read.damage ?? { firstBadSeq: 0, problem: 'no header' });
+    return runView(read.replay, { writable: false, problems: [...read.problems], recovered: null, fingerprint: read.fingerprint, damage: read.damage });
   }
 
   return {
@@ -233,7 +213,7 @@ export function createRunService(options: RunServiceOptions) {
       const handle: OpenRun = { writer: created.writer, replay: RunReplay.fromEntries(created.entries), recovered: null };
       open.set(runId, handle);
       releaseWhenIdle(runId);
-      return view(handle.replay, { writable: true, problems: [], recovered: null, fingerprint: handle.writer.fingerprint });
+      return runView(handle.replay, { writable: true, problems: [], recovered: null, fingerprint: handle.writer.fingerprint, damage: null });
     },
 
     recordResult(runId: string, input: ResultInput): Promise<RecordOutcome> {
@@ -286,51 +266,12 @@ export function createRunService(options: RunServiceOptions) {
         checkId('run', runId);
         try {
           const handle = await writable(runId);
-          return view(handle.replay, { writable: true, problems: [], recovered: handle.recovered, fingerprint: handle.writer.fingerprint });
+          return runView(handle.replay, { writable: true, problems: [], recovered: handle.recovered, fingerprint: handle.writer.fingerprint, damage: null });
         } catch (error) {
           if (!(error instanceof RunNotWritableError)) throw error;
           return readOnlyView(runId);
         }
       });
-    },
-
-    /** A run as it is on disk, without taking its lock or repairing anything (for viewers and `run show`). */
-    async readRun(runId: string): Promise<RunView> {
-      const cached = open.get(checkId('run', runId));
-      if (cached !== undefined) {
-        return view(cached.replay, { writable: true, problems: [], recovered: cached.recovered, fingerprint: cached.writer.fingerprint });
-      }
-      return readOnlyView(runId);
-    },
-
-    /** Every run in the data directory, newest first, each journal read back and its chain verified. */
-    async listRuns(): Promise<RunSummary[]> {
-      const names = await folderNames(layout.runsFolder(dataDirectory));
-      const ids = names.filter((name) => name.endsWith('.journal')).map((name) => name.slice(0, -'.journal'.length));
-      const summaries = await Promise.all(
-        ids.map(async (id): Promise<RunSummary> => {
-          const { replay, problems } = await readOnly(id);
-          const state = stateOf(replay);
-          const { run, plan, source } = replay.header;
-          return {
-            id,
-            lot: run.lot,
-            sourceId: run.sourceId,
-            sourceName: source.name,
-            planId: plan.id,
-            planVersion: plan.version,
-            planName: plan.name,
-            createdAt: run.createdAt,
-            status: replay.status,
-            decision: state.decision,
-            n: state.n,
-            total: state.total,
-            ok: problems.length === 0,
-            problems,
-          };
-        }),
-      );
-      return summaries.sort((a, b) => b.createdAt.localeCompare(a.createdAt));
     },
 
     /** Release every journal handle and lock this service holds. */

@@ -3,6 +3,7 @@
  * run service hands out.
  */
 import { z } from 'zod';
+import type { RunOutcome } from './runOutcome.js';
 import type { EvidenceState, Observation } from '../engine/index.js';
 import { JOURNAL_FORMAT, planVersionSchema, type JournalProblem, type PlanVersion, type QuarantineRecord } from '../store/index.js';
 
@@ -122,6 +123,8 @@ export interface RunView {
     readonly rule: string | null;
     readonly fingerprint: string | null;
   };
+  /** Where the run stands, in the words every place uses. */
+  readonly outcome: RunOutcome;
   readonly plan: PlanVersion;
   readonly entries: RunEntryView[];
   readonly state: RunState;
@@ -130,22 +133,4 @@ export interface RunView {
   readonly problems: JournalProblem[];
   /** Set when opening this run moved a torn final line to quarantine. */
   readonly recovered: QuarantineRecord | null;
-}
-
-export interface RunSummary {
-  readonly id: string;
-  readonly lot: string;
-  readonly sourceId: string;
-  readonly sourceName: string;
-  readonly planId: string;
-  readonly planVersion: number;
-  readonly planName: string;
-  readonly createdAt: string;
-  readonly status: RunStatus;
-  readonly decision: Decision;
-  readonly n: number;
-  readonly total: number;
-  /** True when the journal's chain verifies (a torn tail not yet quarantined counts as a problem). */
-  readonly ok: boolean;
-  readonly problems: JournalProblem[];
 }

@@ -1,6 +1,6 @@
 import type { DecisionRecordInput } from './recordInput.js';
 import { FONT_MONO, FONT_REGULAR } from './fonts.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
 
 /** Label printed before the fingerprint; fingerprintFromPdf looks for it. */
 export const FINGERPRINT_LABEL = 'Fingerprint (SHA-256 of the run journal):';

@@ -1,6 +1,7 @@
+import { OUTCOME_WORDS } from '../inspection/runOutcome.js';
 import type { DecisionRecordInput, QualityEstimate, QualityLevel } from './recordInput.js';
 import { formatCount, formatFixed, formatNumber, formatTimestamp } from './format.js';
-import type { RecordLayout } from './layout.js';
+import type { RecordLayout } from './pageLayout.js';
 import { stateHeadline } from './titleBlock.js';
 
 const MODEL_NAMES = {
@@ -75,8 +76,10 @@ export function drawDecisionSection(layout: RecordLayout, input: DecisionRecordI
   const counted = input.plan.model === 'count' ? 'Nonconformities found' : 'Nonconforming found';
   layout.heading('Decision and quality estimate');
   layout.keyValues([
+    ['Outcome', OUTCOME_WORDS[input.outcome]],
     ['Decision', stateHeadline(decision.state)],
     ['Rule applied', decision.rule],
+    ...(input.history.length > 1 ? [['Decision history', input.history.map((event) => `${event.at} seq ${event.sequence} ${event.actor}: ${event.text}`).join('\n')] as [string, string]] : []),
     ...(input.modelDetail?.decisionRows ?? [
       ['Items inspected', formatCount(decision.itemsInspected)],
       [counted, formatCount(decision.nonconformingFound)],

@@ -5,7 +5,16 @@
  */
 import { designLinearCountPlan, linearCountLimitRows, resolvePlan, decideLinearCount, isLinearCountSpec, PlanParameterError, type GradedSpec, type LifetimeSpec, type MeasurementSpec, type PlanSpec, type LinearCountSpec } from '../engine/index.js';
 import { estimateAfterStop } from '../engine/estimation/index.js';
-import { resultTotal } from '../inspection/index.js';
+import {
+  OUTCOME_WORDS,
+  itemHorizon,
+  createRunCatalogue,
+  localTimestamp,
+  requireIntact,
+  resultTotal,
+  type IntactRunRead,
+  type RunCatalogue,
+} from '../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
 import { modelChart } from './modelChartData.js';
 import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
@@ -20,7 +29,6 @@ import type {
   RecordPlan,
   RecordState,
 } from './recordInput.js';
-import { localTimestamp, readRunJournal, requireVerified, type RunJournalRead } from './runJournalRead.js';
 import { softwareIdentity, type SoftwareIdentity } from './software.js';
 
 export interface RecordContext {
@@ -30,9 +38,6 @@ export interface RecordContext {
   readonly generatedAt: Date;
 }
 
-/** Items drawn past the last one inspected, so the steps just ahead stay in view. */
-const HORIZON_MARGIN = 1.1;
-const MINIMUM_HORIZON = 10;
 
 /**
  * `DR-<random part of the run id>-<first 8 hex of the fingerprint>`: the same journal gives the same
@@ -56,7 +61,7 @@ function linearSpec(spec: PlanSpec): LinearCountSpec {
  * The plan, decision, estimate and chart of a measurement, lifetime or graded run, in its natural
  * units; the decision's numbers are the evidence as the run stands (as it closed, when closed).
  */
-function modelRecordParts(read: RunJournalRead, spec: MeasurementSpec | LifetimeSpec | GradedSpec, confidenceLevel: number) {
+function modelRecordParts(read: IntactRunRead, spec: MeasurementSpec | LifetimeSpec | GradedSpec, confidenceLevel: number) {
   const { replay } = read;
   const { plan } = replay.header;
   const state = replay.evidence.state();
@@ -80,7 +85,7 @@ function modelRecordParts(read: RunJournalRead, spec: MeasurementSpec | Lifetime
   };
 }
 
-function recordPlan(read: RunJournalRead): RecordPlan {
+function recordPlan(read: IntactRunRead): RecordPlan {
   const { plan } = read.replay.header;
   const spec = linearSpec(plan.spec);
   const design = designLinearCountPlan(spec, { curvePoints: 2 });
@@ -106,7 +111,7 @@ function recordPlan(read: RunJournalRead): RecordPlan {
 }
 
 /** Every result in journal order, each void carried with the entry it cancels. */
-function recordEntries(read: RunJournalRead): RecordEntry[] {
+function recordEntries(read: IntactRunRead): RecordEntry[] {
   const voids = new Map<number, EntryVoid>();
   for (const entry of read.entries) {
     if (entry.kind !== 'void') continue;
@@ -125,11 +130,9 @@ function recordEntries(read: RunJournalRead): RecordEntry[] {
   }));
 }
 
-/** The item count the record's chart and the Records place draw up to. */
+/** The item count the record's chart draws up to: the screens' horizon rule (inspection/runPictures.ts) one item past the last. */
 export function evidenceHorizon(spec: LinearCountSpec, itemsInspected: number): number {
-  const { lines } = resolvePlan(spec);
-  const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * itemsInspected));
-  return lines.truncation === null ? ahead : Math.min(lines.truncation, Math.max(ahead, itemsInspected));
+  return itemHorizon(itemsInspected, 1, resolvePlan(spec).lines.truncation);
 }
 
 function boundarySteps(spec: LinearCountSpec, itemsInspected: number): BoundaryStep[] {
@@ -144,7 +147,7 @@ function closedState(rule: string, decision: 'accept' | 'reject'): RecordState {
   return rule.startsWith(`${decision} at truncation`) ? `${decision} at truncation` : decision;
 }
 
-function recordDecision(read: RunJournalRead): RecordDecision {
+function recordDecision(read: IntactRunRead): RecordDecision {
   const { replay } = read;
   const close = replay.status === 'closed' ? replay.lastClose : null;
   if (close !== null) {
@@ -199,12 +202,12 @@ export function recordQualityEstimate(spec: LinearCountSpec, decision: RecordDec
 }
 
 /** The time offsets the journal was written with, e.g. "UTC+01:00 (the inspecting computer's clock)". */
-function timeZoneOf(read: RunJournalRead): string {
+function timeZoneOf(read: IntactRunRead): string {
   const offsets = [...new Set(read.entries.map((entry) => entry.offset))];
   return `UTC${offsets.join(', UTC')} (as recorded by the inspecting computer)`;
 }
 
-function inspectorsOf(read: RunJournalRead): string[] {
+function inspectorsOf(read: IntactRunRead): string[] {
   // Everyone who wrote an entry after the header: results, voids, overrides.
   const names = [read.replay.header.run.inspector, ...read.entries.filter((entry) => entry.kind !== 'open').map((entry) => entry.actor)];
   const unique = [...new Set(names.filter((name): name is string => name !== null && name.trim() !== ''))];
@@ -212,7 +215,7 @@ function inspectorsOf(read: RunJournalRead): string[] {
 }
 
 /** The decision record of a run from one verified read of its journal. */
-export function decisionRecordFromRun(read: RunJournalRead, context: RecordContext): DecisionRecordInput {
+export function decisionRecordFromRun(read: IntactRunRead, context: RecordContext): DecisionRecordInput {
   const { header: runHeader, lastClose, status } = read.replay;
   const { run, plan, source } = runHeader;
   const opened = read.entries[0];
@@ -247,6 +250,12 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
     decision,
     qualityEstimate: model === null ? recordQualityEstimate(linearSpec(plan.spec), decision, context.settings.confidenceLevel) : model.qualityEstimate,
     ...(model === null ? {} : { modelDetail: model.modelDetail }),
+    outcome: read.row.outcome,
+    history: read.history.map((event) =>
+      event.kind === 'decision'
+        ? { sequence: event.seq, at: event.at, actor: event.actor, text: `${event.decision} (${event.rule})` }
+        : { sequence: event.seq, at: event.at, actor: event.actor, text: `${OUTCOME_WORDS.reopened}: ${event.reason}` },
+    ),
     fingerprint: read.fingerprint,
     interim: decision.state === 'continue',
     approval: { inspectedBy: run.inspector, reviewedBy: null },
@@ -254,7 +263,7 @@ export function decisionRecordFromRun(read: RunJournalRead, context: RecordConte
 }
 
 /** The offset the last close entry was written with. */
-function closeOffset(read: RunJournalRead): string {
+function closeOffset(read: IntactRunRead): string {
   return read.entries.findLast((entry) => entry.kind === 'close')?.offset ?? '+00:00';
 }
 
@@ -265,10 +274,15 @@ export async function recordContextFor(dataDirectory: string, generatedAt = new 
 }
 
 /**
- * Reads a run's journal (refusing one that does not verify), the settings and the software
- * identity, and builds its record input.
+ * Reads a run through the catalogue (refusing a journal that does not verify), the settings and
+ * the software identity, and builds its record input.
  */
-export async function decisionRecordForRun(dataDirectory: string, runId: string, generatedAt = new Date()): Promise<DecisionRecordInput> {
-  const [read, context] = await Promise.all([readRunJournal(dataDirectory, runId), recordContextFor(dataDirectory, generatedAt)]);
-  return decisionRecordFromRun(requireVerified(read), context);
+export async function decisionRecordForRun(
+  dataDirectory: string,
+  runId: string,
+  generatedAt = new Date(),
+  catalogue: RunCatalogue = createRunCatalogue(dataDirectory),
+): Promise<DecisionRecordInput> {
+  const [read, context] = await Promise.all([catalogue.readRun(runId), recordContextFor(dataDirectory, generatedAt)]);
+  return decisionRecordFromRun(requireIntact(read), context);
 }

@@ -4,7 +4,7 @@
  */
 import { FONT_REGULAR } from './fonts.js';
 import { drawLineLegend, niceStep } from './evidenceChart.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
 import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
 
 interface Frame {

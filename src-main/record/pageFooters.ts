@@ -1,6 +1,6 @@
 import type { DecisionRecordInput } from './recordInput.js';
 import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
-import { INK, TYPE_SIZE } from './layout.js';
+import { INK, TYPE_SIZE } from './pageLayout.js';
 
 export function pageLabel(pageNumber: number, pageCount: number): string {
   return `page ${pageNumber} of ${pageCount}`;

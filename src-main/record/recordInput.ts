@@ -6,6 +6,7 @@
  * Timestamps are ISO 8601 strings with an explicit offset (`2025-03-14T08:02:11+01:00` or `...Z`);
  * they are printed as written, never converted, so the record shows the time the inspector saw.
  */
+import type { RunOutcome } from '../inspection/runOutcome.js';
 
 /** Who issues the record and with what software. */
 export interface RecordHeader {
@@ -181,6 +182,15 @@ export interface RecordApproval {
   reviewedBy: string | null;
 }
 
+/** One decision of the run, or its reopening by an override with the reason, in journal order. */
+export interface RecordHistoryEvent {
+  sequence: number;
+  at: string;
+  actor: string;
+  /** E.g. "accept (2 nonconforming <= acceptance number 2 at n = 152)" or "reopened after a decision: recount". */
+  text: string;
+}
+
 export interface DecisionRecordInput {
   header: RecordHeader;
   subject: RecordSubject;
@@ -192,6 +202,10 @@ export interface DecisionRecordInput {
   decision: RecordDecision;
   /** Null only while no item has been inspected: there is nothing to estimate from. */
   qualityEstimate: QualityEstimate | null;
+  /** Where the run stands, in the words every place of the app uses (inspection/runOutcome.ts). */
+  outcome: RunOutcome;
+  /** Every decision and every reopening, in journal order. */
+  history: RecordHistoryEvent[];
   /** The run journal's final SHA-256, 64 lower-case hex digits. */
   fingerprint: string;
   /** True for a run not yet decided: the record says so on every page. */

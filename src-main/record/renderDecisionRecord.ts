@@ -3,7 +3,7 @@ import type { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { validateDecisionRecordInput, type DecisionRecordInput } from './recordInput.js';
 import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './fonts.js';
-import { FOOTER_RESERVE, RecordLayout } from './layout.js';
+import { FOOTER_RESERVE, RecordLayout } from './pageLayout.js';
 import { drawTitleBlock, subjectLine } from './titleBlock.js';
 import { drawDecisionSection, drawPlanSection, drawTestedSection } from './detailSections.js';
 import { drawEvidenceChart } from './evidenceChart.js';

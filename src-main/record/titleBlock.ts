@@ -2,7 +2,7 @@ import type { DecisionRecordInput, RecordState, RecordSubject } from './recordIn
 import { countNoun } from '../engine/countWords.js';
 import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
 import { formatCount, formatFixed, formatTimestamp } from './format.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './layout.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
 
 /** The decision as printed in the summary box. */
 export function stateHeadline(state: RecordState): string {

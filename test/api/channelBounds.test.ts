@@ -77,6 +77,8 @@ describe('a run started before the bounds existed', () => {
     expect(text.split('\n').filter(Boolean)).toHaveLength(1);
     expect(text).toContain('"alpha":0.05');
     await writeFile(journal, text.replace('"alpha":0.05', '"truncation":1000000000,"alpha":0.05'));
+    // A run written before anchors existed has no anchor file beside its journal.
+    await rm(journal.replace(/\.journal$/, '.anchor'));
     const answer = await dispatch('record.open', { runId });
     expect(answer.ok).toBe(false);
     expect((answer as { message: string }).message).toMatch(/truncation must be an integer from 1 to 100000/);

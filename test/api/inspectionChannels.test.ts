@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import type { InspectionRunView, InspectionStep } from '../../src-main/api/channels/inspectionChannels.js';
+import type { RunRow } from '../../src-main/inspection/index.js';
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
@@ -107,12 +108,12 @@ describe('the inspection channels', () => {
     expect(await dispatch('inspection.open', { runId: '../settings' })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'runId' });
   });
 
-  it('inspection.list shows each run with its counted items and decision', async () => {
+  it('inspection.list shows each run with its counted items and outcome', async () => {
     const { dispatch, planId, sourceId } = await setUp();
     const { run } = await started(dispatch, planId, sourceId);
     value(await dispatch('inspection.record', { runId: run.id, result: 'pass' }));
-    const runs = value<{ id: string; n: number; decision: string; status: string; ok: boolean }[]>(await dispatch('inspection.list', null));
-    expect(runs).toEqual([expect.objectContaining({ id: run.id, n: 1, decision: 'continue', status: 'open', ok: true })]);
+    const runs = value<RunRow[]>(await dispatch('inspection.list', null));
+    expect(runs).toEqual([expect.objectContaining({ runId: run.id, itemsInspected: 1, outcome: 'open', damage: null })]);
   });
 
   it('takes a count per unit on a count plan', async () => {

@@ -4,7 +4,7 @@ import type { RecordChannelOutputs, RecordRunView } from '../../src-main/api/cha
 import { createDispatcher, type Dispatch } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import type { ChannelResult } from '../../src-main/api/result.js';
-import type { RunHistory } from '../../src-main/record/runHistory.js';
+import type { RunHistory } from '../../src-main/api/channels/recordChannels.js';
 import { layout } from '../../src-main/store/index.js';
 import type { ResultInput } from '../../src-main/inspection/index.js';
 import { incomingSpec, passes, recordWorkspace, sourceWithPlan, type RecordWorkspace } from '../record/fromRunFixtures.js';
@@ -75,10 +75,10 @@ describe('the record channels over a hand-counted history', () => {
 
   async function lots(filter: object): Promise<string[]> {
     const history = value<RunHistory>(await dispatch('record.history', filter));
-    return history.rows.map((row) => row.lot);
+    return history.rows.map((row) => row.lot ?? '');
   }
 
-  it('lists every run, newest start first, with source, lot, plan, dates, decision and counts', async () => {
+  it('lists every run, newest start first, with source, lot, plan, dates, outcome and counts', async () => {
     const history = value<RunHistory>(await dispatch('record.history', {}));
     expect(history.totalRuns).toBe(7);
     expect(history.rows.map((row) => row.lot)).toEqual(['FM-1', 'BW-3', 'KF-3', 'BW-2', 'KF-2', 'BW-1', 'KF-1']);
@@ -89,15 +89,15 @@ describe('the record channels over a hand-counted history', () => {
       sourceName: 'Kestrel Fasteners (invented)',
       planName: 'Incoming check',
       planVersion: 1,
-      decision: 'reject',
+      outcome: 'rejected',
       itemsInspected: 2,
       nonconformingFound: 2,
-      verified: true,
+      damage: null,
     });
-    expect(kf2.startedAt.slice(0, 10)).toBe('2025-03-10');
+    expect(kf2.startedAt?.slice(0, 10)).toBe('2025-03-10');
     expect(kf2.endedAt).not.toBeNull();
-    expect(history.rows.find((row) => row.lot === 'KF-1')).toMatchObject({ decision: 'accept', itemsInspected: 31, nonconformingFound: 0 });
-    expect(history.rows.find((row) => row.lot === 'FM-1')).toMatchObject({ decision: 'undecided', endedAt: null, itemsInspected: 3, nonconformingFound: 1, rule: null });
+    expect(history.rows.find((row) => row.lot === 'KF-1')).toMatchObject({ outcome: 'accepted', itemsInspected: 31, nonconformingFound: 0 });
+    expect(history.rows.find((row) => row.lot === 'FM-1')).toMatchObject({ outcome: 'open', endedAt: null, itemsInspected: 3, nonconformingFound: 1, rule: null });
   });
 
   it('filters by source', async () => {
@@ -106,10 +106,10 @@ describe('the record channels over a hand-counted history', () => {
     expect(await lots({ sourceId: 'src-19990101-00000000' })).toEqual([]);
   });
 
-  it('filters by decision', async () => {
-    expect(await lots({ decision: 'accept' })).toEqual(['BW-3', 'BW-1', 'KF-1']);
-    expect(await lots({ decision: 'reject' })).toEqual(['BW-2', 'KF-2']);
-    expect(await lots({ decision: 'undecided' })).toEqual(['FM-1', 'KF-3']);
+  it('filters by outcome', async () => {
+    expect(await lots({ outcome: 'accepted' })).toEqual(['BW-3', 'BW-1', 'KF-1']);
+    expect(await lots({ outcome: 'rejected' })).toEqual(['BW-2', 'KF-2']);
+    expect(await lots({ outcome: 'open' })).toEqual(['FM-1', 'KF-3']);
   });
 
   it('filters by period on the start date, both ends included', async () => {
@@ -120,9 +120,9 @@ describe('the record channels over a hand-counted history', () => {
   });
 
   it('combines the filters', async () => {
-    expect(await lots({ sourceId: sourceIds.get('Kestrel Fasteners (invented)'), from: '2025-03-01', to: '2025-03-31', decision: 'accept' })).toEqual(['KF-1']);
-    expect(await lots({ sourceId: sourceIds.get('Brightwater Plastics (invented)'), decision: 'reject' })).toEqual(['BW-2']);
-    expect(await lots({ sourceId: sourceIds.get('Brightwater Plastics (invented)'), decision: 'undecided' })).toEqual([]);
+    expect(await lots({ sourceId: sourceIds.get('Kestrel Fasteners (invented)'), from: '2025-03-01', to: '2025-03-31', outcome: 'accepted' })).toEqual(['KF-1']);
+    expect(await lots({ sourceId: sourceIds.get('Brightwater Plastics (invented)'), outcome: 'rejected' })).toEqual(['BW-2']);
+    expect(await lots({ sourceId: sourceIds.get('Brightwater Plastics (invented)'), outcome: 'open' })).toEqual([]);
   });
 
   it('refuses a malformed date and a period that ends before it starts, naming the field', async () => {
@@ -133,7 +133,7 @@ describe('the record channels over a hand-counted history', () => {
       field: 'to',
       message: 'to: The period ends before it starts.',
     });
-    expect(await dispatch('record.history', { decision: 'maybe' })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'decision' });
+    expect(await dispatch('record.history', { outcome: 'maybe' })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'outcome' });
   });
 
   it('record.open shows a decided run read-only with its evidence path, steps and sequential estimate', async () => {
@@ -182,9 +182,10 @@ describe('the record channels over a hand-counted history', () => {
       const refused = await dispatch('record.pdf', { runId });
       expect(refused).toMatchObject({ ok: false, code: 'conflict', field: 'runId' });
       expect(refused.ok === false && refused.message).toMatch(/the journal does not verify .*entry 5/);
-      // History still lists it, flagged, so the damage is seen.
-      const history = value<RunHistory>(await dispatch('record.history', { decision: 'accept' }));
-      expect(history.rows.find((row) => row.lot === 'BW-3')).toMatchObject({ verified: false });
+      // History still lists it, as damaged from the edited entry, so the damage is seen.
+      const history = value<RunHistory>(await dispatch('record.history', { outcome: 'damaged' }));
+      expect(history.rows.map((row) => row.lot)).toEqual(['BW-3']);
+      expect(history.rows[0].damage).toMatchObject({ firstBadSeq: 5 });
     } finally {
       await writeFile(journal, original);
     }

@@ -271,6 +271,8 @@ describe('bad command-line input gets one line and the right exit code', () => {
     const text = await readFile(journal, 'utf8');
     expect(text).toContain('"lot":"QV-OLD"');
     await writeFile(journal, text.replace('"lot":"QV-OLD"', '"lot":"QV\\u001b[2J\\u009bOLD"'));
+    // A run written before anchors existed has no anchor file beside its journal.
+    await rm(journal.replace(/\.journal$/, '.anchor'));
     const shown = await cli(['run', 'show', '--run', oldRun, '--data-dir', data]);
     expect(shown.code).toBe(0);
     expect(shown.stdout).toContain('lot QV\\u{1B}[2J\\u{9B}OLD');

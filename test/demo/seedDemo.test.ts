@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { DEMO_ORGANISATION, DataFolderNotEmptyError, demoLots, demoPlans, demoSources, seedDemo } from '../../src-main/demo/index.js';
-import { createRunService } from '../../src-main/inspection/index.js';
+import { createRunCatalogue } from '../../src-main/inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, verifyJournal, layout } from '../../src-main/store/index.js';
 
 const folders: string[] = [];
@@ -31,22 +31,19 @@ describe('seedDemo', () => {
     expect(plans).toHaveLength(demoPlans.length);
     expect(plans.find((plan) => plan.part === 'housing clip')).toMatchObject({ characteristic: 'flash' });
 
-    const service = createRunService({ dataDirectory: data });
-    const runs = await service.listRuns();
-    await service.close();
+    const runs = await createRunCatalogue(data).listRuns();
     expect(runs).toHaveLength(demoLots.length);
-    expect(runs.map((run) => run.id).sort()).toEqual(report.runs.map((run) => run.id).sort());
-    expect(runs.every((run) => run.ok)).toBe(true);
-    for (const run of runs) expect((await verifyJournal(layout.runJournal(data, run.id))).ok).toBe(true);
+    expect(runs.map((run) => run.runId).sort()).toEqual(report.runs.map((run) => run.id).sort());
+    expect(runs.every((run) => run.damage === null)).toBe(true);
+    for (const run of runs) expect((await verifyJournal(layout.runJournal(data, run.runId))).ok).toBe(true);
 
     // Several decided both ways and exactly one unfinished, as the scenario promises.
-    const closed = runs.filter((run) => run.status === 'closed');
-    expect(closed.filter((run) => run.decision === 'accept').length).toBeGreaterThanOrEqual(3);
-    expect(closed.filter((run) => run.decision === 'reject').length).toBeGreaterThanOrEqual(2);
-    expect(runs.filter((run) => run.status === 'open')).toHaveLength(1);
-    expect(runs.find((run) => run.status === 'open')).toMatchObject({ lot: 'BW-0422', decision: 'continue' });
+    expect(runs.filter((run) => run.outcome === 'accepted').length).toBeGreaterThanOrEqual(3);
+    expect(runs.filter((run) => run.outcome === 'rejected').length).toBeGreaterThanOrEqual(2);
+    expect(runs.filter((run) => run.outcome === 'open')).toHaveLength(1);
+    expect(runs.find((run) => run.outcome === 'open')).toMatchObject({ lot: 'BW-0422' });
     // Across weeks: the first and last runs start more than four weeks apart.
-    const starts = runs.map((run) => Date.parse(run.createdAt)).sort();
+    const starts = runs.map((run) => Date.parse(run.startedAt ?? '')).sort();
     expect(starts.at(-1)! - starts[0]).toBeGreaterThan(28 * 86_400_000);
   });
 

@@ -61,14 +61,14 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   await expect(page.getByTestId('history-count')).toHaveText('4 runs');
   await page.screenshot({ path: 'test/artifacts/records-history.png' });
 
-  // Filter by decision, then by source, then clear.
-  await page.getByTestId('filter-decision').selectOption('accept');
+  // Filter by outcome, then by source, then clear.
+  await page.getByTestId('filter-outcome').selectOption('accepted');
   await expect(rows).toHaveCount(2);
   await expect(page.getByTestId('history-count')).toHaveText('2 of 4 runs');
   await page.getByTestId('filter-source').selectOption({ label: 'Kestrel Fasteners (invented)' });
   await expect(rows).toHaveCount(1);
   await expect(rows.first()).toContainText('KF-25-0311');
-  await page.getByTestId('filter-decision').selectOption('undecided');
+  await page.getByTestId('filter-outcome').selectOption('open');
   await expect(page.getByText('No run matches these filters.')).toBeVisible();
   await page.getByTestId('filter-clear').click();
   await expect(rows).toHaveCount(4);
@@ -88,7 +88,7 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   await page.getByRole('button', { name: 'Open lot KF-25-0312' }).click();
   const view = page.getByTestId('record-view');
   await expect(view).toBeVisible();
-  await expect(page.getByTestId('record-decision')).toHaveAttribute('data-decision', 'reject');
+  await expect(page.getByTestId('record-decision')).toHaveAttribute('data-outcome', 'rejected');
   await expect(page.getByTestId('record-n')).toHaveText('2');
   await expect(page.getByTestId('record-total')).toHaveText('2');
   await expect(page.getByTestId('record-estimate')).toContainText('Whitehead 1986');
@@ -114,7 +114,7 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   // An undecided run opens too, and its record is offered as interim.
   await page.getByTestId('leave-record').click();
   await page.getByRole('button', { name: 'Open lot BW-7782' }).click();
-  await expect(page.getByTestId('record-decision')).toHaveAttribute('data-decision', 'undecided');
+  await expect(page.getByTestId('record-decision')).toHaveAttribute('data-outcome', 'open');
   await expect(page.getByTestId('download-record')).toHaveText('Download interim record (PDF)');
   await expect(page.getByTestId('record-estimate')).toContainText('Interim, the run is undecided');
 });

@@ -55,7 +55,10 @@ describe('the run command line', () => {
     const { data, runId } = await startRun();
     const shown = await cli(['run', 'show', '--run', runId, '--data-dir', data, '--json']);
     const view = JSON.parse(shown.stdout);
-    expect(Object.keys(view)).toEqual(['run', 'plan', 'entries', 'state']);
+    // The first four keys are the shape station scripts read; the rest were added after them.
+    expect(Object.keys(view)).toEqual(['run', 'plan', 'entries', 'state', 'outcome', 'history', 'problems', 'writable', 'fingerprint']);
+    expect(view).toMatchObject({ outcome: 'open', history: [], problems: [], writable: true, fingerprint: view.run.fingerprint });
+    expect(view.fingerprint).toMatch(/^[0-9a-f]{64}$/);
     expect(view.plan).toMatchObject({ format: 'tallyline.plan/1', version: 1, spec: { model: 'passfail', p0: 0.01, p1: 0.1 } });
     expect(view.run).toMatchObject({ id: runId, lot: 'L-7', sourceName: 'Acme Castings', inspector: 'Ana' });
     expect(view.state).toEqual({ decision: 'continue', n: 0, total: 0, llr: 0 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { linearCountLiveState } from '../../src-main/engine/index.js';
-import { createRunService, RunClosedError, RunNotWritableError } from '../../src-main/inspection/index.js';
+import { createRunCatalogue, createRunService, RunClosedError, RunNotWritableError } from '../../src-main/inspection/index.js';
 import { PlanRepository, layout, verifyJournal } from '../../src-main/store/index.js';
 import { appendFile, readFile, writeFile } from 'node:fs/promises';
 import { countSpec, passFailSpec, workspace } from './helpers.js';
@@ -117,7 +117,7 @@ describe('the run service', () => {
       expect(view.writable).toBe(false);
       expect(view.problems[0]).toMatchObject({ seq: 2, kind: 'tampered' });
       await expect(second.recordResult(run.id, { result: 'pass', actor: 'Ana' })).rejects.toBeInstanceOf(RunNotWritableError);
-      expect((await second.listRuns())[0]).toMatchObject({ id: run.id, ok: false });
+      expect((await createRunCatalogue(data).listRuns())[0]).toMatchObject({ runId: run.id, outcome: 'damaged', damage: { firstBadSeq: 2 } });
     } finally {
       await second.close();
     }
@@ -141,16 +141,16 @@ describe('the run service', () => {
     }
   });
 
-  it('lists runs newest first with their decision and chain status', async () => {
-    const { service, source, plan } = await workspace();
+  it('lists runs newest first with their outcome and chain status', async () => {
+    const { service, source, plan, data } = await workspace();
     const first = await service.startRun({ planId: plan.id, sourceId: source.id, lot: 'A' });
     await new Promise((resolve) => setTimeout(resolve, 5));
     const second = await service.startRun({ planId: plan.id, sourceId: source.id, lot: 'B' });
     await service.recordResult(second.run.id, { result: 'fail', actor: 'Ana' });
-    const runs = await service.listRuns();
-    expect(runs.map((run) => [run.id, run.lot, run.n, run.ok])).toEqual([
-      [second.run.id, 'B', 1, true],
-      [first.run.id, 'A', 0, true],
+    const runs = await createRunCatalogue(data).listRuns();
+    expect(runs.map((run) => [run.runId, run.lot, run.itemsInspected, run.outcome, run.damage])).toEqual([
+      [second.run.id, 'B', 1, 'open', null],
+      [first.run.id, 'A', 0, 'open', null],
     ]);
   });
 });

@@ -173,6 +173,8 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
     boundarySteps: steps,
     decision: { state, rule, itemsInspected: n, nonconformingFound: d, finalLogLikelihoodRatio: llr },
     qualityEstimate: naiveQualityEstimate({ model: 'passfail', itemsInspected: n, nonconformities: d, confidenceLevel: 0.95 }),
+    outcome: !decided ? 'open' : state.startsWith('accept') ? 'accepted' : 'rejected',
+    history: [],
     fingerprint: DEMO_FINGERPRINT,
     interim: !decided,
     approval: { inspectedBy: 'A. Brennan', reviewedBy: null },

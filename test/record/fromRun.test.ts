@@ -41,7 +41,7 @@ describe('the decision record of a decided run made through the run service', ()
   afterAll(() => space.cleanup());
 
   it('is the run as the service closed it: accepted at 57 items with 1 nonconforming, one entry voided', async () => {
-    const view = await space.service.readRun(runId);
+    const view = await space.service.openRun(runId);
     expect(view.run.decision).toBe('accept');
     expect(input.decision).toMatchObject({ state: 'accept', itemsInspected: 57, nonconformingFound: 1 });
     expect(input.decision.rule).toBe(view.run.rule);

@@ -31,8 +31,17 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import { shortText } from '../../store/textFields.js';
-import type { GradedLiveState, LifetimeLiveState, LimitRow, LinearCountLiveState, MeasurementLiveState } from '../../engine/index.js';
-import { itemResultSchema, type RunEntryView, type RunState, type RunSummary, type RunView } from '../../inspection/index.js';
+import {
+  itemResultSchema,
+  type InspectionEntry,
+  type InspectionFrame,
+  type InspectionLive,
+  type RunRow,
+  type RunState,
+  type RunView,
+} from '../../inspection/index.js';
+
+export type { EvidenceFrame, GradedFrame, InspectionEntry, InspectionFrame, InspectionLive, LifetimeFrame, MeasurementFrame } from '../../inspection/index.js';
 
 /** Run ids become file names: the same characters the store allows. */
 const runId = idSchema('run');
@@ -54,7 +63,7 @@ export const inspectionChannels = {
       note: optionalText(2000),
     }),
   },
-  /** Every run in the data folder, newest first, each journal verified. */
+  /** Every run in the data folder, newest first, from the run catalogue (a damaged journal is one damaged row). */
   'inspection.list': { input: z.null().optional() },
   /** One run with its entries, state and live look-ahead: an unfinished run continues from here. */
   'inspection.open': { input: z.object({ runId }) },
@@ -77,74 +86,6 @@ export const inspectionChannels = {
   },
 } as const;
 
-/** A result with the statistics after it, for the evidence path; `after` is null for a voided entry. */
-export interface InspectionEntry extends RunEntryView {
-  readonly after: { readonly n: number; readonly total: number; readonly llr: number; /** lifetime only */ readonly time?: number } | null;
-}
-
-/**
- * What the evidence chart draws the run against: the acceptance and rejection numbers for item
- * counts 1..horizon (a row at the truncation holds the truncation rule) and the LLR limits of the
- * lines in use.
- */
-export interface EvidenceFrame {
-  readonly model?: undefined;
-  readonly horizon: number;
-  readonly limits: LimitRow[];
-  readonly lnA: number;
-  readonly lnB: number;
-  readonly truncation: number | null;
-}
-
-/** Measurement: the limits of the running sum against n, in the plan's unit (the truncation row holds its rule). */
-export interface MeasurementFrame {
-  readonly model: 'measurement';
-  readonly horizon: number;
-  readonly limits: Array<{ n: number; accept: number; reject: number }>;
-  /** The LLR limits in use (moved inward with the overshoot correction). */
-  readonly lnA: number;
-  readonly lnB: number;
-  readonly truncation: number | null;
-  /** 'above': reject at or above `reject`, accept at or below `accept`; 'below': mirrored. */
-  readonly rejectWhen: 'above' | 'below';
-  readonly unit: string | null;
-}
-
-/** Lifetime: per failure count, the accumulated test time that accepts and the latest failure time that rejects. */
-export interface LifetimeFrame {
-  readonly model: 'lifetime';
-  /** The largest failure count drawn. */
-  readonly horizon: number;
-  readonly limits: Array<{ failures: number; acceptTime: number | null; rejectTime: number | null }>;
-  readonly lnA: number;
-  readonly lnB: number;
-  readonly truncation: null;
-  readonly maxTime: number | null;
-  readonly maxFailures: number | null;
-  readonly unit: string | null;
-}
-
-/** Graded: the demerit limits against n (accept null while acceptance is impossible). */
-export interface GradedFrame {
-  readonly model: 'graded';
-  readonly horizon: number;
-  readonly limits: LimitRow[];
-  readonly lnA: number;
-  readonly lnB: number;
-  readonly truncation: number | null;
-  /** Demerits per item of each class (the first class 0, the second 1). */
-  readonly demerits: Array<{ className: string; demerits: number }>;
-}
-
-export type InspectionFrame = EvidenceFrame | MeasurementFrame | LifetimeFrame | GradedFrame;
-
-/** The look-ahead of a run, from the model's live-state function. */
-export type InspectionLive =
-  | (LinearCountLiveState & { readonly model?: undefined })
-  | (MeasurementLiveState & { readonly model: 'measurement' })
-  | (LifetimeLiveState & { readonly model: 'lifetime' })
-  | (GradedLiveState & { readonly model: 'graded' });
-
 /** A run as the Inspect place shows it. */
 export interface InspectionRunView extends Omit<RunView, 'entries'> {
   readonly entries: InspectionEntry[];
@@ -166,7 +107,7 @@ export interface InspectionStep {
 
 export interface InspectionChannelOutputs {
   'inspection.start': InspectionRunView;
-  'inspection.list': RunSummary[];
+  'inspection.list': RunRow[];
   'inspection.open': InspectionRunView;
   'inspection.record': InspectionStep;
   'inspection.void': InspectionStep;

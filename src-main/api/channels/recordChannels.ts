@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import type { PlanSpec } from '../../engine/index.js';
 import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
-import type { HistoryRow, RunHistory } from '../../record/runHistory.js';
+import { RUN_OUTCOMES, type RunOutcome, type RunRow } from '../../inspection/index.js';
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 
 /** Run ids become file names: the same characters the store allows. */
@@ -11,14 +11,14 @@ const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-D
 
 /** Channels of the Records place: the run history, one run read-only, its record and its entries. */
 export const recordChannels = {
-  /** Every run, newest first, filtered by source, start date (from/to, inclusive) and decision. */
+  /** Every run, newest first, filtered by source, start date (from/to, inclusive) and outcome. */
   'record.history': {
     input: z
       .object({
         sourceId: idSchema('source').optional(),
         from: day.optional(),
         to: day.optional(),
-        decision: z.enum(['accept', 'reject', 'undecided']).optional(),
+        outcome: z.enum(RUN_OUTCOMES as [RunOutcome, ...RunOutcome[]]).optional(),
       })
       .refine((filter) => filter.from === undefined || filter.to === undefined || filter.from <= filter.to, {
         message: 'The period ends before it starts.',
@@ -35,7 +35,7 @@ export const recordChannels = {
 
 /** A run as the Records place shows it: what the record says, and the evidence path for the chart. */
 export interface RecordRunView {
-  readonly row: HistoryRow;
+  readonly row: RunRow;
   readonly recordId: string;
   readonly plan: { readonly id: string; readonly name: string; readonly version: number; readonly spec: PlanSpec };
   readonly lotSize: number | null;
@@ -52,6 +52,18 @@ export interface RecordRunView {
 export interface RecordFile {
   readonly fileName: string;
   readonly interim: boolean;
+}
+
+/** The Records place's list: the rows that pass the filter, and what the filter can offer. */
+export interface RunHistory {
+  /** Rows that pass the filter, newest start first. */
+  readonly rows: RunRow[];
+  /** Every source that has runs, by name. */
+  readonly sources: Array<{ readonly id: string; readonly name: string }>;
+  /** Runs before filtering. */
+  readonly totalRuns: number;
+  /** Runs whose journal is damaged, before filtering. */
+  readonly damaged: number;
 }
 
 export interface RecordChannelOutputs {

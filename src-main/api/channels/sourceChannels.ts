@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import { shortText } from '../../store/textFields.js';
-import type { HistoryRun, SourceSummary } from '../../history/index.js';
+import type { SourceSummary } from '../../history/index.js';
+import type { RunRow } from '../../inspection/index.js';
 import type { Source } from '../../store/sources.js';
 
 const sourceId = idSchema('source');
@@ -46,7 +47,7 @@ export interface SourceSummaryView {
   /** Why the pooled figure is not an estimate to act on. */
   caveat: string;
   /** The source's runs, newest first. */
-  runs: HistoryRun[];
+  runs: RunRow[];
 }
 
 export interface SourceChannelOutputs {

@@ -3,7 +3,11 @@ import {
   ResultRefusedError,
   RunClosedError,
   RunNotWritableError,
+  RunNotFoundError,
+  RunUnreadableError,
+  createRunCatalogue,
   createRunService,
+  type RunCatalogue,
   resultProblem,
   type RecordOutcome,
   type RunService,
@@ -13,7 +17,7 @@ import { PlanRepository, SourceRepository } from '../../store/index.js';
 import type { InspectionEntry, InspectionRunView, InspectionStep } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
-import { evidenceFrame, pointOf, runLive, withStatistics } from './inspectionFrames.js';
+import { evidenceFrame, pointOf, runLive, withStatistics } from '../../inspection/index.js';
 
 type InspectionHandlers = Pick<
   ChannelHandlers,
@@ -22,6 +26,7 @@ type InspectionHandlers = Pick<
 
 export interface InspectionHandlerContext {
   dataDirectory: string;
+  catalogue?: RunCatalogue;
   /** The run service to use; the app passes its own so it can close the journals on quit. */
   runService?: RunService;
 }
@@ -33,7 +38,8 @@ interface KnownRun {
 }
 
 export function createInspectionHandlers(context: InspectionHandlerContext): InspectionHandlers {
-  const service = context.runService ?? createRunService({ dataDirectory: context.dataDirectory });
+  const catalogue = context.catalogue ?? createRunCatalogue(context.dataDirectory);
+  const service = context.runService ?? createRunService({ dataDirectory: context.dataDirectory, catalogue });
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const known = new Map<string, KnownRun>();
@@ -77,7 +83,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
       return remember(await service.startRun({ planId, planVersion, sourceId, lot, lotSize, inspector, note }));
     },
 
-    'inspection.list': () => service.listRuns(),
+    'inspection.list': () => catalogue.listRuns(),
 
     'inspection.open': async ({ runId }) => remember(await translated(() => service.openRun(runId), runId)),
 
@@ -118,13 +124,19 @@ async function translated<Value>(operation: () => Promise<Value>, runId: string)
     if (error instanceof RunClosedError) {
       throw new ChannelFailure('conflict', 'The run has reached its decision: record a reason for entering more before the next entry.', 'runId');
     }
-    if (error instanceof RunNotWritableError) throw new ChannelFailure('conflict', error.message, 'runId');
+    if (error instanceof RunNotWritableError || error instanceof RunUnreadableError) throw new ChannelFailure('conflict', sentence(error.message), 'runId');
+    if (error instanceof RunNotFoundError) throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
     if (error instanceof ResultRefusedError) throw new ChannelFailure('invalid-parameter', `This run's plan is ${error.model}: ${error.message}.`, 'result');
     const systemCode = (error as NodeJS.ErrnoException).code;
     if (systemCode === 'ENOENT') throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
     if (error instanceof Error && error.name === 'Error' && systemCode === undefined) {
-      throw new ChannelFailure('conflict', `${error.message[0]?.toUpperCase() ?? ''}${error.message.slice(1)}.`, 'runId');
+      throw new ChannelFailure('conflict', sentence(error.message), 'runId');
     }
     throw error;
   }
+}
+
+/** A message as a sentence: capital first letter, one full stop. */
+function sentence(message: string): string {
+  return `${message[0]?.toUpperCase() ?? ''}${message.slice(1)}${message.endsWith('.') ? '' : '.'}`;
 }

@@ -1,20 +1,30 @@
-import { linearCountLimitRows, resolvePlan, type PlanSpec, type LinearCountSpec } from '../../engine/index.js';
-import { RunJournalContentError, resultTotal } from '../../inspection/index.js';
+import type { PlanSpec } from '../../engine/index.js';
+import {
+  RunJournalUnverifiedError,
+  RunNotFoundError,
+  createRunCatalogue,
+  requireIntact,
+  type IntactRunRead,
+  type RunCatalogue,
+  matchesRunFilter,
+  evidenceFrame,
+  runLive,
+  withStatistics,
+  type RunRow,
+} from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/entriesCsv.js';
-import { decisionRecordFromRun, evidenceHorizon, recordContextFor } from '../../record/fromRun.js';
+import { decisionRecordFromRun, recordContextFor } from '../../record/fromRun.js';
 import type { DecisionRecordInput } from '../../record/recordInput.js';
 import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
-import { historyRow, runHistory } from '../../record/runHistory.js';
-import { RunJournalUnverifiedError, readRunJournal, requireVerified, type RunJournalRead } from '../../record/runJournalRead.js';
-import type { EvidenceFrame, InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
+import type { InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
-import { evidenceFrame as runFrame, runLive, withStatistics } from './inspectionFrames.js';
 
 type RecordHandlers = Pick<ChannelHandlers, 'record.history' | 'record.open' | 'record.pdf' | 'record.csv'>;
 
 export interface RecordHandlerContext {
   dataDirectory: string;
+  catalogue?: RunCatalogue;
 }
 
 /**
@@ -23,15 +33,17 @@ export interface RecordHandlerContext {
  */
 export function createRecordHandlers(context: RecordHandlerContext): RecordHandlers {
   const { dataDirectory } = context;
+  const catalogue = context.catalogue ?? createRunCatalogue(dataDirectory);
 
   /** One verified read of a run and its record input, with the run service's refusals as failures. */
-  async function recordOf(runId: string): Promise<{ read: RunJournalRead; input: DecisionRecordInput }> {
+  async function recordOf(runId: string): Promise<{ read: IntactRunRead; input: DecisionRecordInput }> {
     try {
-      const [read, recordContext] = await Promise.all([readRunJournal(dataDirectory, runId), recordContextFor(dataDirectory)]);
-      return { read, input: decisionRecordFromRun(requireVerified(read), recordContext) };
+      const [read, recordContext] = await Promise.all([catalogue.readRun(runId), recordContextFor(dataDirectory)]);
+      const intact = requireIntact(read);
+      return { read: intact, input: decisionRecordFromRun(intact, recordContext) };
     } catch (error) {
-      if ((error as NodeJS.ErrnoException).code === 'ENOENT') throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
-      if (error instanceof RunJournalUnverifiedError || error instanceof RunJournalContentError) {
+      if (error instanceof RunNotFoundError) throw new ChannelFailure('not-found', `There is no run with id ${runId}.`, 'runId');
+      if (error instanceof RunJournalUnverifiedError) {
         throw new ChannelFailure('conflict', `${error.message}. Check it with: tallyline verify --run ${runId}`, 'runId');
       }
       throw error;
@@ -44,18 +56,26 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   }
 
   return {
-    'record.history': (filter) => runHistory(dataDirectory, filter),
+    'record.history': async (filter) => {
+      const every = await catalogue.listRuns();
+      return {
+        rows: every.filter((row) => matchesRunFilter(row, filter)),
+        sources: sourcesOf(every),
+        totalRuns: every.length,
+        damaged: every.filter((row) => row.outcome === 'damaged').length,
+      };
+    },
 
     'record.open': async ({ runId }) => {
       const { read, input } = await recordOf(runId);
       const { plan, run } = read.replay.header;
       return {
-        row: historyRow(read),
+        row: read.row,
         recordId: input.header.recordId,
         plan: { id: plan.id, name: plan.name, version: plan.version, spec: plan.spec },
         lotSize: run.lotSize,
         inspectors: input.subject.inspectors,
-        ...recordEvidence(read, plan.spec, input.decision.itemsInspected),
+        ...recordEvidence(read, plan.spec),
         decision: input.decision,
         estimate: input.qualityEstimate,
         interim: input.interim,
@@ -76,30 +96,14 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   };
 }
 
-/** The evidence path and the frame it is drawn in: for the models with their own design path, as the Inspect place draws them. */
-function recordEvidence(read: RunJournalRead, spec: PlanSpec, itemsInspected: number): { entries: InspectionEntry[]; frame: InspectionFrame } {
-  if (spec.model === 'passfail' || spec.model === 'count') {
-    return { entries: evidenceEntries(read, spec), frame: evidenceFrame(spec, itemsInspected) };
-  }
-  return { entries: withStatistics(spec, read.replay.results), frame: runFrame(spec, runLive(spec, read.replay.evidence.state())) };
+/** Every source that has runs, by name, for the Records filter. */
+function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }> {
+  const named = new Map<string, string>();
+  for (const row of rows) if (row.sourceId !== null && row.sourceName !== null) named.set(row.sourceId, row.sourceName);
+  return [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
 }
 
-/** Each result with n, total and LLR after it (null for a voided one): the points of the evidence path. */
-function evidenceEntries(read: RunJournalRead, spec: LinearCountSpec): InspectionEntry[] {
-  const { countWeight, itemOffset } = resolvePlan(spec);
-  let n = 0;
-  let total = 0;
-  return read.replay.results.map((entry) => {
-    if (entry.voided) return { ...entry, after: null };
-    n += 1;
-    total += resultTotal(entry.result);
-    return { ...entry, after: { n, total, llr: countWeight * total - itemOffset * n } };
-  });
-}
-
-/** The steps the chart draws: the same horizon as the printed record's chart. */
-function evidenceFrame(spec: LinearCountSpec, itemsInspected: number): EvidenceFrame {
-  const { lines, countWeight } = resolvePlan(spec);
-  const horizon = evidenceHorizon(spec, itemsInspected);
-  return { horizon, limits: linearCountLimitRows(lines, horizon), lnA: lines.h2 * countWeight, lnB: -lines.h1 * countWeight, truncation: lines.truncation };
+/** The evidence path and the frame it is drawn in: the run's pictures, as the Inspect place draws them. */
+function recordEvidence(read: IntactRunRead, spec: PlanSpec): { entries: InspectionEntry[]; frame: InspectionFrame } {
+  return { entries: withStatistics(spec, read.replay.results), frame: evidenceFrame(spec, runLive(spec, read.replay.evidence.state())) };
 }

@@ -1,6 +1,6 @@
 import { DataFolderNotEmptyError, seedDemo } from '../../demo/index.js';
-import { POOLING_CAVEAT, historyRunReader, summariseSource, type HistoryRun } from '../../history/index.js';
-import { createRunService } from '../../inspection/index.js';
+import { POOLING_CAVEAT, summariseSource } from '../../history/index.js';
+import { createRunCatalogue, type RunCatalogue, type RunRow } from '../../inspection/index.js';
 import { SourceRepository, type Source } from '../../store/index.js';
 import type { SourceListItem } from '../channels/sourceChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
@@ -13,13 +13,12 @@ type SourceHandlers = Pick<
 
 export interface SourceHandlerContext {
   dataDirectory: string;
+  catalogue?: RunCatalogue;
 }
 
 export function createSourceHandlers(context: SourceHandlerContext): SourceHandlers {
   const sources = new SourceRepository(context.dataDirectory);
-  // Only listRuns is used: it reads journals without taking their locks.
-  const runService = createRunService({ dataDirectory: context.dataDirectory });
-  const historyRuns = historyRunReader(context.dataDirectory);
+  const catalogue = context.catalogue ?? createRunCatalogue(context.dataDirectory);
 
   async function existing(id: string): Promise<Source> {
     try {
@@ -42,15 +41,14 @@ export function createSourceHandlers(context: SourceHandlerContext): SourceHandl
     }
   }
 
-  async function runsBySource(): Promise<Map<string, HistoryRun[]>> {
-    const summaries = await runService.listRuns();
-    const runs = await historyRuns(summaries);
-    const grouped = new Map<string, HistoryRun[]>();
-    summaries.forEach((summary, index) => {
-      const list = grouped.get(summary.sourceId) ?? [];
-      list.push(runs[index]);
-      grouped.set(summary.sourceId, list);
-    });
+  async function runsBySource(): Promise<Map<string, RunRow[]>> {
+    const grouped = new Map<string, RunRow[]>();
+    for (const row of await catalogue.listRuns()) {
+      if (row.sourceId === null) continue;
+      const list = grouped.get(row.sourceId);
+      if (list === undefined) grouped.set(row.sourceId, [row]);
+      else list.push(row);
+    }
     return grouped;
   }
 
@@ -83,7 +81,7 @@ export function createSourceHandlers(context: SourceHandlerContext): SourceHandl
 
     'source.summary': async ({ id }) => {
       const source = await existing(id);
-      const runs = (await runsBySource()).get(id) ?? [];
+      const runs = await catalogue.listRuns({ sourceId: id });
       return { source, summary: summariseSource(runs), caveat: POOLING_CAVEAT, runs };
     },
 

@@ -69,6 +69,7 @@ export function linearCountModel<S extends LinearCountSpec, O>(
         total: evidence.total,
         llr: decided.llr,
         rule: decided.decision === 'continue' ? null : decided.rule,
+        standing: decided.rule,
       };
     },
     liveState: (plan, state) => linearCountLiveState(plan.spec, state.n, state.total),

@@ -21,6 +21,8 @@ export interface DesignOptions {
 export interface EvidenceDecision {
   readonly decision: Decision;
   readonly rule: string | null;
+  /** The rule the decision rests on, also while continuing (where the evidence stands between the limits). */
+  readonly standing: string;
   readonly llr: number;
   /** Entries counted (items, measurements, lifetime entries). */
   readonly n: number;

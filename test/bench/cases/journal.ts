@@ -5,22 +5,13 @@
  * - journal-reload-10k: read a 10,000-result journal, verify its chain, replay it, recompute the state.
  */
 import { createHash } from 'node:crypto';
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import os from 'node:os';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { LinearCountSpec } from '../../../src-main/engine/index.js';
 import { RunReplay } from '../../../src-main/inspection/index.js';
-import {
-  GENESIS_HASH,
-  JOURNAL_FORMAT,
-  JournalWriter,
-  PLAN_FORMAT,
-  analyseJournal,
-  entryLine,
-  lineHash,
-  type JournalEntry,
-} from '../../../src-main/store/index.js';
+import { JournalWriter, analyseJournal } from '../../../src-main/store/index.js';
 import { benchCase } from '../benchCase.js';
+import { benchFolder, benchJournalText } from '../benchJournal.js';
 
 const RELOAD_RESULTS = 10_000;
 
@@ -29,35 +20,17 @@ const reloadSpec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alph
 // Wald's midline slope s = ln((1-p0)/(1-p1)) / (ln(p1/p0) + ln((1-p0)/(1-p1))) for this plan.
 const MIDLINE_SLOPE = Math.log(0.99 / 0.9) / (Math.log(10) + Math.log(0.99 / 0.9));
 
-/** Write a valid 10,000-result journal in one go (the format, not the fsync path, is what reload reads). */
+/** A valid 10,000-result journal whose path stays between the lines. */
 function writeLongRun(journalPath: string, runId: string): void {
-  const start = new Date('2026-01-05T08:00:00.000Z').getTime();
-  const plan = { format: PLAN_FORMAT, id: 'plan-bench', version: 1, name: 'bench', sourceId: 'src-bench', spec: reloadSpec, createdAt: new Date(start).toISOString() };
-  const run = { id: runId, planId: plan.id, planVersion: 1, sourceId: 'src-bench', lot: 'L', lotSize: null, inspector: null, note: null, createdAt: plan.createdAt };
-  const lines: string[] = [];
-  let previous = GENESIS_HASH;
+  const results: Array<'pass' | 'fail'> = [];
   let total = 0;
-  const push = (kind: JournalEntry['kind'], payload: unknown): void => {
-    const seq = lines.length;
-    const line = entryLine({ seq, time: new Date(start + seq * 1000).toISOString(), offset: '+00:00', actor: 'bench', kind, payload, previous });
-    lines.push(line);
-    previous = lineHash(line);
-  };
-  push('open', { format: JOURNAL_FORMAT, run, plan, source: { id: 'src-bench', name: 'Bench' } });
   for (let n = 1; n <= RELOAD_RESULTS; n += 1) {
     // Fail whenever the count falls below the midline s n: the path stays between the two lines.
     const fail = total < MIDLINE_SLOPE * n;
     total += fail ? 1 : 0;
-    push('result', { itemId: `SN-${n}`, result: fail ? 'fail' : 'pass', category: null, note: null });
+    results.push(fail ? 'fail' : 'pass');
   }
-  writeFileSync(journalPath, lines.join('\n') + '\n');
-}
-
-/** A temp folder for the runner's cases (it has no teardown): removed when the process exits. */
-function benchFolder(): string {
-  const folder = mkdtempSync(path.join(os.tmpdir(), 'tallyline-bench-'));
-  process.once('exit', () => rmSync(folder, { recursive: true, force: true }));
-  return folder;
+  writeFileSync(journalPath, benchJournalText(runId, reloadSpec, results, Date.parse('2026-01-05T08:00:00.000Z')));
 }
 
 export const cases = [

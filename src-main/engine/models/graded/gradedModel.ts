@@ -80,6 +80,7 @@ export const gradedModel: SequentialModel<{
       model: 'graded',
       decision: decided.decision,
       rule: decided.decision === 'continue' ? null : decided.rule,
+      standing: decided.rule,
       llr: decided.llr,
       n: evidence.n,
       total: demerits,

@@ -44,6 +44,7 @@ function lifetimeState(plan: LifetimePlan, evidence: LifetimeEvidence): Lifetime
     model: 'lifetime',
     decision: decided.decision,
     rule: decided.decision === 'continue' ? null : decided.rule,
+    standing: decided.rule,
     llr,
     n: evidence.n,
     total: evidence.failures,

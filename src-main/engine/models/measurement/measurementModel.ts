@@ -67,6 +67,7 @@ export const measurementModel: SequentialModel<{
       model: 'measurement',
       decision: decided.decision,
       rule: decided.decision === 'continue' ? null : decided.rule,
+      standing: decided.rule,
       llr: decided.llr,
       n: evidence.n,
       total: evidence.sum,

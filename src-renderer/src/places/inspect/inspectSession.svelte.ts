@@ -6,7 +6,8 @@
  */
 import { request } from '../../lib/channelClient';
 import type { InspectionEntry, InspectionRunView, InspectionStep } from '../../../../src-main/api/channels/inspectionChannels';
-import type { ItemResult, RunSummary } from '../../../../src-main/inspection/runTypes';
+import type { ItemResult } from '../../../../src-main/inspection/runTypes';
+import type { RunRow } from '../../../../src-main/inspection/runCatalogue';
 import type { ChannelResult } from '../../../../src-main/api/result';
 
 /** One result as keyed, per model (see inspectionChannels.ts). */
@@ -84,7 +85,7 @@ class StartDraft {
 const activeRunKey = 'tallyline.inspect.activeRun';
 
 export class InspectSession {
-  runs = $state.raw<RunSummary[]>([]);
+  runs = $state.raw<RunRow[]>([]);
   runsProblem = $state<string | null>(null);
   /** The active run: its header, plan, state, live look-ahead and chart frame (its entries are in `entries`). */
   view = $state.raw<InspectionRunView | null>(null);

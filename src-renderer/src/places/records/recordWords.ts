@@ -1,7 +1,11 @@
 /** Words and numbers as the Records place prints them. */
-import type { HistoryDecision } from '../../../../src-main/record/runHistory';
+import { OUTCOME_WORDS, type RunOutcome } from '../../../../src-main/inspection/runOutcome';
 
-export const DECISION_WORDS: Record<HistoryDecision, string> = { accept: 'Accepted', reject: 'Rejected', undecided: 'Undecided' };
+/** The outcome word as a heading or a table cell: "Accepted", "Reopened after a decision". */
+export function outcomeTitle(outcome: RunOutcome): string {
+  const word = OUTCOME_WORDS[outcome];
+  return `${word[0].toUpperCase()}${word.slice(1)}`;
+}
 
 /** "2025-03-14 08:02" from "2025-03-14T08:02:11+01:00": the inspector's clock, as recorded. */
 export function recordedTime(iso: string | null): string {

@@ -4,19 +4,19 @@
  * downloads, which works the same in the browser host and in Electron's renderer.
  */
 import { request } from '../../lib/channelClient';
-import type { RecordRunView } from '../../../../src-main/api/channels/recordChannels';
-import type { HistoryDecision, RunHistory } from '../../../../src-main/record/runHistory';
+import type { RecordRunView, RunHistory } from '../../../../src-main/api/channels/recordChannels';
+import type { RunOutcome } from '../../../../src-main/inspection/runOutcome';
 import { downloadBase64, downloadText } from '../../lib/download';
 
 export interface HistoryFilterState {
   sourceId: string;
   from: string;
   to: string;
-  decision: HistoryDecision | '';
+  outcome: RunOutcome | '';
 }
 
 export class RecordsSession {
-  filter = $state<HistoryFilterState>({ sourceId: '', from: '', to: '', decision: '' });
+  filter = $state<HistoryFilterState>({ sourceId: '', from: '', to: '', outcome: '' });
   history = $state.raw<RunHistory | null>(null);
   problem = $state<string | null>(null);
   loading = $state(false);
@@ -29,14 +29,14 @@ export class RecordsSession {
 
   /** Asks for the history with the current filters; an older answer arriving late is dropped. */
   async refresh(): Promise<void> {
-    const { sourceId, from, to, decision } = this.filter;
+    const { sourceId, from, to, outcome } = this.filter;
     const mine = ++this.generation;
     this.loading = true;
     const result = await request('record.history', {
       ...(sourceId ? { sourceId } : {}),
       ...(from ? { from } : {}),
       ...(to ? { to } : {}),
-      ...(decision ? { decision } : {}),
+      ...(outcome ? { outcome } : {}),
     });
     if (mine !== this.generation) return;
     this.loading = false;
@@ -49,7 +49,7 @@ export class RecordsSession {
   }
 
   clearFilters(): void {
-    this.filter = { sourceId: '', from: '', to: '', decision: '' };
+    this.filter = { sourceId: '', from: '', to: '', outcome: '' };
   }
 
   async open(runId: string): Promise<void> {

@@ -1,7 +1,8 @@
 /**
- * What the Inspect place draws a run with, per model: the live look-ahead from the model's
- * live-state function, the evidence frame (limits in the model's natural units) and each entry's
- * point on the evidence path. Shapes are described at the top of channels/inspectionChannels.ts.
+ * The pictures of a run, per model, for the Inspect and Records screens alike: the live look-ahead
+ * from the model's live-state function, the evidence frame (limits in the model's natural units,
+ * drawn up to one horizon rule) and each entry's point on the evidence path. Shapes per model are
+ * described at the top of api/channels/inspectionChannels.ts.
  */
 import {
   gradedBoundaries,
@@ -11,13 +12,86 @@ import {
   measurementPlan,
   planOf,
   resolvePlan,
+  type GradedLiveState,
+  type LifetimeLiveState,
+  type LimitRow,
   type LinearCountLiveState,
+  type MeasurementLiveState,
   type PlanSpec,
-} from '../../engine/index.js';
-import { RunEvidence, type RunEntryView, type RunState } from '../../inspection/index.js';
-import type { InspectionEntry, InspectionFrame, InspectionLive } from '../channels/inspectionChannels.js';
+} from '../engine/index.js';
+import { RunEvidence } from './runEvidence.js';
+import type { RunEntryView, RunState } from './runTypes.js';
 
-/** Items drawn beyond the furthest point the run can reach next, so the steps ahead stay in view. */
+/** A result with the statistics after it, for the evidence path; `after` is null for a voided entry. */
+export interface InspectionEntry extends RunEntryView {
+  readonly after: { readonly n: number; readonly total: number; readonly llr: number; /** lifetime only */ readonly time?: number } | null;
+}
+
+/**
+ * What the evidence chart draws the run against: the acceptance and rejection numbers for item
+ * counts 1..horizon (a row at the truncation holds the truncation rule) and the LLR limits of the
+ * lines in use.
+ */
+export interface EvidenceFrame {
+  readonly model?: undefined;
+  readonly horizon: number;
+  readonly limits: LimitRow[];
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+}
+
+/** Measurement: the limits of the running sum against n, in the plan's unit (the truncation row holds its rule). */
+export interface MeasurementFrame {
+  readonly model: 'measurement';
+  readonly horizon: number;
+  readonly limits: Array<{ n: number; accept: number; reject: number }>;
+  /** The LLR limits in use (moved inward with the overshoot correction). */
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+  /** 'above': reject at or above `reject`, accept at or below `accept`; 'below': mirrored. */
+  readonly rejectWhen: 'above' | 'below';
+  readonly unit: string | null;
+}
+
+/** Lifetime: per failure count, the accumulated test time that accepts and the latest failure time that rejects. */
+export interface LifetimeFrame {
+  readonly model: 'lifetime';
+  /** The largest failure count drawn. */
+  readonly horizon: number;
+  readonly limits: Array<{ failures: number; acceptTime: number | null; rejectTime: number | null }>;
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: null;
+  readonly maxTime: number | null;
+  readonly maxFailures: number | null;
+  readonly unit: string | null;
+}
+
+/** Graded: the demerit limits against n (accept null while acceptance is impossible). */
+export interface GradedFrame {
+  readonly model: 'graded';
+  readonly horizon: number;
+  readonly limits: LimitRow[];
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+  /** Demerits per item of each class (the first class 0, the second 1). */
+  readonly demerits: Array<{ className: string; demerits: number }>;
+}
+
+export type InspectionFrame = EvidenceFrame | MeasurementFrame | LifetimeFrame | GradedFrame;
+
+/** The look-ahead of a run, from the model's live-state function. */
+export type InspectionLive =
+  | (LinearCountLiveState & { readonly model?: undefined })
+  | (MeasurementLiveState & { readonly model: 'measurement' })
+  | (LifetimeLiveState & { readonly model: 'lifetime' })
+  | (GradedLiveState & { readonly model: 'graded' });
+
+
+/** Items drawn beyond the furthest point the run can reach next, so the steps ahead stay in view (screens and record alike). */
 const HORIZON_MARGIN = 1.25;
 const MINIMUM_HORIZON = 10;
 /** Failure counts drawn at least, for a lifetime chart. */
@@ -28,8 +102,8 @@ export function runLive(spec: PlanSpec, state: RunState): InspectionLive {
   return planOf(spec).liveState(state);
 }
 
-/** Items to draw: far enough to show where the run is expected to end, never past the truncation. */
-function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
+/** Items to draw: far enough to show where the run is expected to end, never past the truncation. The one horizon rule. */
+export function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
   const ahead = Math.max(MINIMUM_HORIZON, Math.ceil(HORIZON_MARGIN * (n + Math.max(1, expectedRemaining))));
   return truncation === null ? ahead : Math.min(truncation, Math.max(ahead, n));
 }
