@@ -17,6 +17,7 @@ export const settingsChannels = {
         .gt(0.5, 'The confidence level is above 50 %.')
         .lt(1, 'The confidence level is below 100 %.')
         .optional(),
+      theme: z.enum(['system', 'light', 'dark'], 'The theme is system, light or dark.').optional(),
     }),
   },
   /** The whole data folder as one `tallyline.archive/1` file, base64, to download. */
