@@ -55,6 +55,8 @@ export interface LinearCountEntry<S extends LinearCountSpec, O> {
   problem(observation: unknown): string | null;
   /** What one result adds to the cumulative count. */
   count(observation: O): number;
+  /** One result drawn at quality theta from uniforms on [0, 1). */
+  draw(quality: number, uniform: () => number): O;
   /** One typed line as a result (`feed`, `replay`). */
   parseText(text: string): EntryText<O>;
   /** The hypotheses in words for the readable design, e.g. "p0 = 0.01, p1 = 0.1". */
@@ -115,6 +117,7 @@ export function linearCountModel<S extends LinearCountSpec, O>(
     },
     point: (state) => ({ n: state.n, total: state.total, llr: state.llr }),
     parseEntryText: (_plan, text) => entry.parseText(text),
+    drawObservation: (_plan, _evidence, quality, uniform) => entry.draw(quality, uniform),
     flags: entry.flags,
     text: {
       result: (observation) => String(observation),

@@ -92,6 +92,8 @@ export interface SequentialPlan<M extends ModelName = ModelName> {
   point(state: EvidenceState): EvidencePoint;
   /** One typed line (trimmed, not blank) as a result of this plan, or what is wrong with it. */
   parseEntryText(text: string): EntryText<Observation>;
+  /** One result drawn at `quality` after the evidence given, from uniforms on [0, 1) (simulated runs, the demo). */
+  drawObservation(evidence: Evidence, quality: number, uniform: () => number): Observation;
   /** How a terminal shows the plan's runs and design. */
   readonly text: {
     result(observation: Observation): string;
@@ -134,6 +136,7 @@ export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> 
     limitRows: (horizon) => model.limitRows(plan, horizon) as LimitRowOf<S['model']>[],
     frame: (live) => model.frame(plan, live) as PlanFrame,
     point: (state) => model.point(state),
+    drawObservation: (evidence, quality, uniform) => model.drawObservation(plan, evidence, quality, uniform) as Observation,
     parseEntryText: (text) => model.parseEntryText(plan, text) as EntryText<Observation>,
     text: {
       result: (observation) => model.text.result(observation),

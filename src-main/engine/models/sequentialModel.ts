@@ -187,6 +187,11 @@ export interface SequentialModel<T extends ModelShapes> {
   point(state: T['state']): EvidencePoint;
   /** One typed line (`feed`, `replay`) as a result of this model, before observationProblem checks it against the run. */
   parseEntryText(plan: T['plan'], text: string): EntryText<T['observation']>;
+  /**
+   * One result drawn at `quality` (the model's quality parameter, labels.quality) after the evidence
+   * given, from uniforms on [0, 1): for simulated runs such as the demo.
+   */
+  drawObservation(plan: T['plan'], evidence: T['evidence'], quality: number, uniform: () => number): T['observation'];
   readonly flags: ModelFlags<T['spec']>;
   readonly text: ModelTerminalText<T>;
   readonly json: ModelJsonFields<T>;

@@ -1,4 +1,5 @@
 import type { CountSpec } from '../../spec.js';
+import { poissonDraw } from '../../distributions/poisson.js';
 import { linearCountFlags } from '../linearCountFlags.js';
 import { linearCountModel } from '../linearCountModel.js';
 
@@ -18,6 +19,7 @@ export const countModel = linearCountModel<CountSpec, CountObservation>('count',
       ? null
       : `a count plan takes a whole number of nonconformities (0 or more), not ${JSON.stringify(result)}`,
   count: (result) => result,
+  draw: poissonDraw,
   parseText: (text) =>
     /^\d+$/.test(text) && Number.isSafeInteger(Number(text))
       ? { result: Number(text) }

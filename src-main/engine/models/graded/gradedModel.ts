@@ -6,7 +6,7 @@ import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, risksFrom, trunc
 import { frameHorizon, MINIMUM_ITEM_HORIZON, withoutPassedTruncation, type EvidenceDecision, type PlanFlagReader, type SequentialModel } from '../sequentialModel.js';
 import { readableGradedPlan } from './gradedText.js';
 import { designGradedPlan, gradedLiveState, type GradedDesign, type GradedLiveState } from './gradedDesign.js';
-import { decideGraded, gradedBoundaries, gradedLimitRows, gradedPlan, type GradedPlan } from './gradedPlan.js';
+import { decideGraded, gradedBoundaries, gradedLimitRows, gradedPlan, gradedQuality, type GradedPlan } from './gradedPlan.js';
 
 /** The class an item was graded into, by name. */
 export interface GradedObservation {
@@ -135,6 +135,15 @@ export const gradedModel: SequentialModel<{
     };
   },
   point: (state) => ({ n: state.n, total: state.total, llr: state.llr }),
+  drawObservation(plan, _evidence, quality, uniform) {
+    // The class by inversion of the cumulative of (1 - t) p0 + t p1 at t = quality.
+    const probabilities = gradedQuality(plan, quality);
+    const total = probabilities.reduce((sum, p) => sum + p, 0);
+    let u = uniform() * total;
+    let k = 0;
+    while (k < probabilities.length - 1 && u >= probabilities[k]) u -= probabilities[k++];
+    return { grade: plan.spec.classes[k] };
+  },
   parseEntryText(plan, text) {
     const { classes } = plan.spec;
     const byName = gradeIndex(classes, text);

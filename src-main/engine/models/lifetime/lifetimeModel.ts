@@ -158,6 +158,8 @@ export const lifetimeModel: SequentialModel<{
     };
   },
   point: (state) => ({ n: state.n, total: state.total, llr: state.llr, time: state.time }),
+  // The next failure, an exponential time with mean `quality` (the MTBF) after the test time so far, by inversion.
+  drawObservation: (_plan, evidence, quality, uniform) => ({ failure: true, time: evidence.time - quality * Math.log1p(-uniform()) }),
   parseEntryText: (_plan, text) => parseLifetimeText(text),
   flags: {
     own: [{ name: 'theta0', kind: 'positive' }, { name: 'theta1', kind: 'positive' }, ...RISK_FLAGS, { name: 'max-time', kind: 'positive' }, { name: 'max-failures', kind: 'integer', min: 1 }, UNIT_FLAG],

@@ -1,6 +1,7 @@
 import { measurementWork } from './measurementWork.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
+import { normalQuantile } from '../../numerics/normalDistribution.js';
 import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
 import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, UNIT_FLAG, UNIT_USAGE, risksFrom, truncationFrom, unitFrom } from '../commonPlanFlags.js';
 import { frameHorizon, MINIMUM_ITEM_HORIZON, withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
@@ -114,6 +115,8 @@ export const measurementModel: SequentialModel<{
     };
   },
   point: (state) => ({ n: state.n, total: state.total, llr: state.llr }),
+  // A normal value with mean `quality` and the plan's sigma, by inversion of one uniform.
+  drawObservation: (plan, _evidence, quality, uniform) => ({ value: quality + plan.spec.sigma * normalQuantile(uniform()) }),
   parseEntryText: (_plan, text) =>
     NUMBER_TEXT.test(text) && Number.isFinite(Number(text))
       ? { result: { value: Number(text) } }

@@ -17,6 +17,7 @@ export const passFailModel = linearCountModel<PassFailSpec, PassFailObservation>
   labels: { title: 'pass/fail', quality: 'p', hypotheses: ['p0', 'p1'], entry: ['item', 'items'], pooledRate: 'fraction nonconforming' },
   problem: (result) => (result === 'pass' || result === 'fail' ? null : `a passfail plan takes "pass" or "fail", not ${JSON.stringify(result)}`),
   count: (result) => (result === 'fail' ? 1 : 0),
+  draw: (quality, uniform) => (uniform() < quality ? 'fail' : 'pass'),
   parseText(text) {
     const result = Object.hasOwn(PASS_FAIL_WORDS, text.toLowerCase()) ? PASS_FAIL_WORDS[text.toLowerCase()] : undefined;
     return result === undefined ? { problem: `${JSON.stringify(text)} is not pass, fail, 0 or 1` } : { result };
