@@ -4,7 +4,7 @@
  * `frameHorizon`) and each entry's point on the evidence path, all from the plan's model
  * (`planOf(spec)`). Shapes per model are described at the top of api/channels/inspectionChannels.ts.
  */
-import { frameHorizon, MINIMUM_ITEM_HORIZON, planOf, type EvidencePoint, type LinearCountLiveState, type PlanFrame, type PlanLiveState, type PlanSpec } from '../engine/index.js';
+import { frameHorizon, MINIMUM_ITEM_HORIZON, planOf, type EvidencePoint, type PlanFrame, type PlanLiveState, type PlanSpec } from '../engine/index.js';
 import { RunEvidence } from './runEvidence.js';
 import type { RunEntryView, RunState } from './runTypes.js';
 
@@ -18,15 +18,12 @@ export interface InspectionEntry extends RunEntryView {
 /** What the evidence chart draws the run against, per model. */
 export type InspectionFrame = PlanFrame;
 
-/**
- * The look-ahead of a run, from the model's live-state function; the pass/fail and count one is
- * marked by an absent `model`, so a screen can tell the shapes apart (a type guard, not a model switch).
- */
-export type InspectionLive = Exclude<PlanLiveState, LinearCountLiveState> | (LinearCountLiveState & { readonly model?: undefined });
+/** The look-ahead of a run, from the model's live-state function (pass/fail and count without a `model` field). */
+export type InspectionLive = PlanLiveState;
 
 /** The look-ahead of a run in the state given, from the plan's model. */
 export function runLive(spec: PlanSpec, state: RunState): InspectionLive {
-  return planOf(spec).liveState(state) as InspectionLive;
+  return planOf(spec).liveState(state);
 }
 
 /** Items to draw for a run that went `n` items and may go `expectedRemaining` more (at least one): the one horizon rule, in items. */
@@ -39,7 +36,7 @@ export function itemHorizon(n: number, expectedRemaining: number, truncation: nu
  * (pass/fail, count) or the expected end of the run (other models), never past the truncation.
  */
 export function evidenceFrame(spec: PlanSpec, live: InspectionLive): InspectionFrame {
-  return planOf(spec).frame(live as PlanLiveState);
+  return planOf(spec).frame(live);
 }
 
 /** The point of the evidence path after a state: n against total, and for lifetime the test time. */
