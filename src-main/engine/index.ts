@@ -12,7 +12,7 @@ export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, 
 
 // The one contract and its registry.
 export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision, EvidencePoint, EntryText, PlanFlag, PlanFlagReader, ModelFlags } from './models/sequentialModel.js';
-export { frameHorizon, MINIMUM_ITEM_HORIZON } from './models/sequentialModel.js';
+export { frameHorizon, itemHorizon, MINIMUM_ITEM_HORIZON } from './models/sequentialModel.js';
 export { modelNames, modelLabels, modelFlags, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
 export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, PlanFrame, LimitRowOf, Observation, Evidence } from './models/registry.js';
 export { formatNumber, formatPercent, formatTable, NUMBER_TEXT } from './textFormat.js';

@@ -4,10 +4,12 @@
  * `frameHorizon`) and each entry's point on the evidence path, all from the plan's model
  * (`planOf(spec)`). Shapes per model are described at the top of api/channels/inspectionChannels.ts.
  */
-import { frameHorizon, MINIMUM_ITEM_HORIZON, planOf, type EvidencePoint, type PlanFrame, type PlanLiveState, type PlanSpec } from '../engine/index.js';
+import { planOf, type EvidencePoint, type PlanFrame, type PlanLiveState, type PlanSpec } from '../engine/index.js';
 import { RunEvidence } from './runEvidence.js';
 import type { RunEntryView, RunState } from './runTypes.js';
 
+/** The horizon rule in items, for the record's chart. */
+export { itemHorizon } from '../engine/index.js';
 export type { GradedFrame, LifetimeFrame, LinearCountFrame as EvidenceFrame, MeasurementFrame } from '../engine/index.js';
 
 /** A result with the statistics after it, for the evidence path; `after` is null for a voided entry. */
@@ -24,11 +26,6 @@ export type InspectionLive = PlanLiveState;
 /** The look-ahead of a run in the state given, from the plan's model. */
 export function runLive(spec: PlanSpec, state: RunState): InspectionLive {
   return planOf(spec).liveState(state);
-}
-
-/** Items to draw for a run that went `n` items and may go `expectedRemaining` more (at least one): the one horizon rule, in items. */
-export function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
-  return frameHorizon({ reached: n, reach: n + Math.max(1, expectedRemaining), minimum: MINIMUM_ITEM_HORIZON, limit: truncation });
 }
 
 /**

@@ -213,6 +213,11 @@ export function frameHorizon(reach: { readonly reached: number; readonly reach: 
 /** Items drawn at least by a chart against items. */
 export const MINIMUM_ITEM_HORIZON = 10;
 
+/** Items to draw for a run that went `n` items and may go `expectedRemaining` more (at least one): the horizon rule in items. */
+export function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
+  return frameHorizon({ reached: n, reach: n + Math.max(1, expectedRemaining), minimum: MINIMUM_ITEM_HORIZON, limit: truncation });
+}
+
 /** Throws unless curvePoints is an integer from 2 to 10001; returns it (default 51). */
 export function curvePointsOf(options: DesignOptions): number {
   return checkCurvePoints(options.curvePoints ?? 51);

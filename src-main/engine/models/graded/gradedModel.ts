@@ -3,7 +3,7 @@ import type { GradedSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
 import { formatNumber } from '../../textFormat.js';
 import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, risksFrom, truncationFrom } from '../commonPlanFlags.js';
-import { frameHorizon, MINIMUM_ITEM_HORIZON, withoutPassedTruncation, type EvidenceDecision, type PlanFlagReader, type SequentialModel } from '../sequentialModel.js';
+import { itemHorizon, withoutPassedTruncation, type EvidenceDecision, type PlanFlagReader, type SequentialModel } from '../sequentialModel.js';
 import { readableGradedPlan } from './gradedText.js';
 import { designGradedPlan, gradedLiveState, type GradedDesign, type GradedLiveState } from './gradedDesign.js';
 import { decideGraded, gradedBoundaries, gradedLimitRows, gradedPlan, gradedQuality, type GradedPlan } from './gradedPlan.js';
@@ -122,8 +122,7 @@ export const gradedModel: SequentialModel<{
   design: designGradedPlan,
   frame(plan, live) {
     // Far enough ahead to show where the run is expected to end under either hypothesis.
-    const reach = live.n + Math.max(1, live.expectedRemainingH0, live.expectedRemainingH1);
-    const horizon = frameHorizon({ reached: live.n, reach, minimum: MINIMUM_ITEM_HORIZON, limit: plan.truncation });
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
     return {
       model: 'graded',
       horizon,

@@ -4,7 +4,7 @@ import { countOf } from '../../countWords.js';
 import { normalQuantile } from '../../numerics/normalDistribution.js';
 import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
 import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, UNIT_FLAG, UNIT_USAGE, risksFrom, truncationFrom, unitFrom } from '../commonPlanFlags.js';
-import { frameHorizon, MINIMUM_ITEM_HORIZON, withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
+import { itemHorizon, withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
 import { readableMeasurementPlan } from './measurementText.js';
 import { designMeasurementPlan, measurementLiveState, type MeasurementDesign, type MeasurementLiveState } from './measurementDesign.js';
 import { decideMeasurement, measurementLimitRows, measurementPlan, type MeasurementPlan } from './measurementPlan.js';
@@ -101,8 +101,7 @@ export const measurementModel: SequentialModel<{
   design: designMeasurementPlan,
   frame(plan, live) {
     // Far enough ahead to show where the run is expected to end under either hypothesis.
-    const reach = live.n + Math.max(1, live.expectedRemainingH0, live.expectedRemainingH1);
-    const horizon = frameHorizon({ reached: live.n, reach, minimum: MINIMUM_ITEM_HORIZON, limit: plan.truncation });
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
     return {
       model: 'measurement',
       horizon,
