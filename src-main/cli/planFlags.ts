@@ -92,11 +92,14 @@ function planFlagTable(): Record<string, Flag<unknown>> {
 
 export const planFlags = planFlagTable();
 
-/** The help lines of the plan flags: --model, then each model's lines (a line two models share once). */
-export const planFlagsUsage = [
-  `  --model ${modelNames.join('|')}   data model (required)`,
-  ...new Set(modelNames.flatMap((model) => modelFlags(model).usage)),
-].join('\n');
+/** The help lines of the plan flags: --model, each model's own lines, then the lines several models share (once). */
+function planFlagsHelp(): string {
+  const lines = modelNames.flatMap((model) => modelFlags(model).usage);
+  const shared = (line: string) => lines.indexOf(line) !== lines.lastIndexOf(line);
+  return [`  --model ${modelNames.join('|')}   data model (required)`, ...lines.filter((line) => !shared(line)), ...new Set(lines.filter(shared))].join('\n');
+}
+
+export const planFlagsUsage = planFlagsHelp();
 
 /** The models that name `flagName` as one of their hypotheses (e.g. --lambda0 for count). */
 function hypothesisOf(flagName: string): ModelName[] {
