@@ -15,7 +15,7 @@
 import type { Stats } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import path from 'node:path';
-import type { PlanSpec } from '../engine/index.js';
+import { modelLabels, type PlanSpec } from '../engine/index.js';
 import { analyseJournal, checkAnchor, checkId, folderNames, layout, readAnchorBytes, withAnchor, type AnchorCheck, type JournalEntry, type JournalProblem } from '../store/index.js';
 import { localTimestamp } from './localTime.js';
 import { RunJournalContentError, RunReplay } from './runReplay.js';
@@ -253,8 +253,8 @@ function rowOf(runId: string, replay: RunReplay | null, entries: readonly Journa
     endedAt: closeEntry === undefined ? null : localTimestamp(closeEntry.time, closeEntry.offset, { milliseconds: true }),
     rule: standing ? (replay.lastClose?.rule ?? null) : null,
     itemsInspected: replay.n,
-    // A sum of measurements, failures or demerits is not a count of nonconforming items.
-    nonconformingFound: model === 'passfail' || model === 'count' ? replay.total : 0,
+    // Only a model whose total counts nonconforming items or nonconformities (labels.pooledRate) has one; a sum of measurements, failures or demerits is not.
+    nonconformingFound: modelLabels(model).pooledRate === null ? 0 : replay.total,
     damage,
   };
 }

@@ -57,3 +57,17 @@ export function poissonCdf(k: number, mean: number): number {
   if (mean <= 0) return 1;
   return sumPoisson(mean, k, null, null);
 }
+
+/**
+ * A Poisson count with mean `rate` drawn from uniforms on [0, 1).
+ *
+ * Method: multiply uniforms until the product falls to e^-rate or below; the count is the number
+ * of factors before that. Its work grows with the rate: meant for the small rates of simulated runs.
+ * References: Knuth, D. E. (1997), The Art of Computer Programming, vol. 2, §3.4.1 (from memory).
+ */
+export function poissonDraw(rate: number, uniform: () => number): number {
+  const limit = Math.exp(-rate);
+  let count = 0;
+  for (let product = uniform(); product > limit; product *= uniform()) count += 1;
+  return count;
+}

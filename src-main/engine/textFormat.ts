@@ -1,4 +1,4 @@
-/** Plain-text tables for the readable (non-JSON) output of CLI commands. */
+/** Plain-text numbers and tables for terminals (the CLI and each model's readable text). Pure. */
 
 /** Left-aligns the first column (labels) and right-aligns the others (numbers), two spaces apart. */
 export function formatTable(headers: readonly string[], rows: ReadonlyArray<readonly string[]>): string {
@@ -24,3 +24,6 @@ export function formatNumber(value: number | null | undefined, digits = 4): stri
 export function formatPercent(value: number): string {
   return `${(100 * value).toFixed(2)}%`;
 }
+
+/** A decimal number as a user types it (sign, digits, point, exponent): what every number flag and input line accepts. */
+export const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
