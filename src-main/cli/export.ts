@@ -3,7 +3,7 @@
  * and marked with their void's reason, sequence, time and actor.
  */
 import { writeFile } from 'node:fs/promises';
-import { entriesToCsv } from '../record/entriesCsv.js';
+import { entriesToCsv } from '../record/input/entriesToCsv.js';
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';

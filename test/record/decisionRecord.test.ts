@@ -2,9 +2,9 @@ import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { renderDecisionRecord, writeDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
-import { DecisionRecordInputError } from '../../src-main/record/recordInput.js';
-import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
+import { renderDecisionRecord, writeDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
+import { DecisionRecordInputError } from '../../src-main/record/input/decisionRecordInput.js';
+import { INTERIM_NOTICE } from '../../src-main/record/pdf/titleBlock.js';
 import { decidedDemoRun, DEMO_FINGERPRINT, longDemoRun, makeDemoRun } from './demoRun.js';
 import { flatten, isStruckThrough, pageGeometry, pdfText, renderPageToPng } from './pdfInspection.js';
 

@@ -8,7 +8,7 @@ import type {
   DecisionRecordInput,
   RecordEntry,
   RecordState,
-} from '../../src-main/record/recordInput.js';
+} from '../../src-main/record/input/decisionRecordInput.js';
 import { naiveQualityEstimate } from '../../src-main/engine/estimation/naiveQualityEstimate.js';
 
 export const DEMO_FINGERPRINT = '3f6c0e9a1b7d24c58e0f9a3b6d1c7e2f5a8b0c3d6e9f1a4b7c0d3e6f9a2b5c8d';

@@ -4,9 +4,9 @@
  * values, and a naive estimate labelled as such. Page images go to test/artifacts/record/.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { decisionRecordForRun } from '../../src-main/record/fromRun.js';
-import type { DecisionRecordInput } from '../../src-main/record/recordInput.js';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
+import { decisionRecordForRun } from '../../src-main/record/input/decisionRecordFromRun.js';
+import type { DecisionRecordInput } from '../../src-main/record/input/decisionRecordInput.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
 import type { ItemResult } from '../../src-main/inspection/index.js';
 import { gradedSpec, lifetimeSpec, measurementSpec } from '../inspection/modelSpecs.js';
 import { recordWorkspace, sourceWithPlan, type RecordWorkspace } from './fromRunFixtures.js';

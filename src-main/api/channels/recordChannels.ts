@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import type { PlanSpec } from '../../engine/index.js';
-import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
+import type { QualityEstimate, RecordDecision } from '../../record/input/decisionRecordInput.js';
 import { RUN_OUTCOMES, type RunOutcome, type RunRow } from '../../inspection/index.js';
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 

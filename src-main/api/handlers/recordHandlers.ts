@@ -12,10 +12,10 @@ import {
   withStatistics,
   type RunRow,
 } from '../../inspection/index.js';
-import { entriesToCsv } from '../../record/entriesCsv.js';
-import { decisionRecordFromRun, recordContextFor } from '../../record/fromRun.js';
-import type { DecisionRecordInput } from '../../record/recordInput.js';
-import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
+import { entriesToCsv } from '../../record/input/entriesToCsv.js';
+import { decisionRecordFromRun, recordContextFor } from '../../record/input/decisionRecordFromRun.js';
+import type { DecisionRecordInput } from '../../record/input/decisionRecordInput.js';
+import { renderDecisionRecord } from '../../record/pdf/renderDecisionRecord.js';
 import type { InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';

@@ -1,4 +1,4 @@
-import type { RecordModel } from './recordInput.js';
+import type { RecordModel } from '../input/decisionRecordInput.js';
 
 /** "conforming" / "nonconforming" for passfail; "3 nonconformities" for the count model. */
 export function resultLabel(model: RecordModel, nonconformities: number): string {

@@ -1,8 +1,8 @@
-import type { DecisionRecordInput, RecordState, RecordSubject } from './recordInput.js';
-import { countNoun } from '../engine/countWords.js';
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
+import type { DecisionRecordInput, RecordState, RecordSubject } from '../input/decisionRecordInput.js';
+import { countNoun } from '../../engine/countWords.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
 import { formatCount, formatFixed, formatTimestamp } from './format.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 /** The decision as printed in the summary box. */
 export function stateHeadline(state: RecordState): string {

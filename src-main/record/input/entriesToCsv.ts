@@ -1,5 +1,5 @@
-import type { RecordEntry, RecordModel } from './recordInput.js';
-import { resultLabel } from './format.js';
+import type { RecordEntry, RecordModel } from './decisionRecordInput.js';
+import { resultLabel } from '../pdf/format.js';
 
 /** Column names of the entries CSV, in order. */
 export const ENTRY_CSV_COLUMNS = [

@@ -6,7 +6,7 @@
  * Timestamps are ISO 8601 strings with an explicit offset (`2025-03-14T08:02:11+01:00` or `...Z`);
  * they are printed as written, never converted, so the record shows the time the inspector saw.
  */
-import type { RunOutcome } from '../inspection/runOutcome.js';
+import type { RunOutcome } from '../../inspection/runOutcome.js';
 
 /** Who issues the record and with what software. */
 export interface RecordHeader {

@@ -11,12 +11,12 @@ import {
   type GradedSpec,
   type LifetimeSpec,
   type MeasurementSpec,
-} from '../engine/index.js';
-import { normalQuantile } from '../engine/numerics/normalDistribution.js';
-import type { ItemResult, RunState } from '../inspection/index.js';
-import { formatCount, formatFixed, formatNumber } from './format.js';
-import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
-import type { ModelRecordDetail, QualityEstimate, RecordPlan } from './recordInput.js';
+} from '../../engine/index.js';
+import { normalQuantile } from '../../engine/numerics/normalDistribution.js';
+import type { ItemResult, RunState } from '../../inspection/index.js';
+import { formatCount, formatFixed, formatNumber } from '../pdf/format.js';
+import { naiveQualityEstimate } from '../../engine/estimation/naiveQualityEstimate.js';
+import type { ModelRecordDetail, QualityEstimate, RecordPlan } from './decisionRecordInput.js';
 
 /** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */
 type ModelPartsSpec = MeasurementSpec | LifetimeSpec | GradedSpec;

@@ -1,9 +1,9 @@
 import { createWriteStream } from 'node:fs';
 import type { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { validateDecisionRecordInput, type DecisionRecordInput } from './recordInput.js';
-import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './fonts.js';
-import { FOOTER_RESERVE, RecordLayout } from './pageLayout.js';
+import { validateDecisionRecordInput, type DecisionRecordInput } from '../input/decisionRecordInput.js';
+import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './recordFonts.js';
+import { FOOTER_RESERVE, RecordLayout } from './recordLayout.js';
 import { drawTitleBlock, subjectLine } from './titleBlock.js';
 import { drawDecisionSection, drawPlanSection, drawTestedSection } from './detailSections.js';
 import { drawEvidenceChart } from './evidenceChart.js';

@@ -2,10 +2,10 @@
  * The evidence chart of a measurement, lifetime or graded run: its path in the model's natural
  * units against the plan's acceptance and rejection lines, drawn as vector paths.
  */
-import { FONT_REGULAR } from './fonts.js';
+import { FONT_REGULAR } from './recordFonts.js';
 import { drawLineLegend, niceStep } from './evidenceChart.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
-import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
+import type { ChartPoint, ModelRecordDetail } from '../input/decisionRecordInput.js';
 
 interface Frame {
   left: number;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { ENTRY_CSV_COLUMNS, entriesToCsv } from '../../src-main/record/entriesCsv.js';
-import type { RecordEntry } from '../../src-main/record/recordInput.js';
+import { ENTRY_CSV_COLUMNS, entriesToCsv } from '../../src-main/record/input/entriesToCsv.js';
+import type { RecordEntry } from '../../src-main/record/input/decisionRecordInput.js';
 import { decidedDemoRun } from './demoRun.js';
 
 /** An independent RFC 4180 reader (quoted fields, doubled quotes, CRLF records) for the round trip. */

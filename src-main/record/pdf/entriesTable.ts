@@ -1,7 +1,7 @@
-import type { RecordEntry, RecordModel } from './recordInput.js';
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
+import type { RecordEntry, RecordModel } from '../input/decisionRecordInput.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
 import { formatTimestamp, resultLabel } from './format.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 const CELL_PADDING = 3;
 const FONT_SIZE = TYPE_SIZE.small;

@@ -3,12 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designLinearCountPlan } from '../../src-main/engine/index.js';
 import { estimateAfterStop } from '../../src-main/engine/estimation/index.js';
 import { layout, verifyJournal } from '../../src-main/store/index.js';
-import { decisionRecordForRun, recordIdFor } from '../../src-main/record/fromRun.js';
-import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
-import { formatNumber } from '../../src-main/record/format.js';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
-import type { DecisionRecordInput } from '../../src-main/record/recordInput.js';
-import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
+import { decisionRecordForRun, recordIdFor } from '../../src-main/record/input/decisionRecordFromRun.js';
+import { fingerprintFromPdf } from '../../src-main/record/pdf/fingerprintFromPdf.js';
+import { formatNumber } from '../../src-main/record/pdf/format.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
+import type { DecisionRecordInput } from '../../src-main/record/input/decisionRecordInput.js';
+import { INTERIM_NOTICE } from '../../src-main/record/pdf/titleBlock.js';
 import {
   INVENTED_ORGANISATION,
   INVENTED_SITE,

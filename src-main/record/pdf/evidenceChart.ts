@@ -1,7 +1,7 @@
-import type { BoundaryStep, DecisionRecordInput, RecordEntry } from './recordInput.js';
-import { countNoun, countOf } from '../engine/countWords.js';
-import { FONT_REGULAR } from './fonts.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import type { BoundaryStep, DecisionRecordInput, RecordEntry } from '../input/decisionRecordInput.js';
+import { countNoun, countOf } from '../../engine/countWords.js';
+import { FONT_REGULAR } from './recordFonts.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 /** Cumulative nonconformities after each counted (not voided) entry; index 0 is the start (0 items). */
 export function evidencePath(entries: readonly RecordEntry[]): Int32Array {

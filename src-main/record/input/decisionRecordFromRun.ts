@@ -3,8 +3,8 @@
  * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
  * the software's identity. The quality estimate is the sequential one once the run is decided.
  */
-import { designLinearCountPlan, linearCountLimitRows, resolvePlan, decideLinearCount, isLinearCountSpec, PlanParameterError, type GradedSpec, type LifetimeSpec, type MeasurementSpec, type PlanSpec, type LinearCountSpec } from '../engine/index.js';
-import { estimateAfterStop } from '../engine/estimation/index.js';
+import { designLinearCountPlan, linearCountLimitRows, resolvePlan, decideLinearCount, isLinearCountSpec, PlanParameterError, type GradedSpec, type LifetimeSpec, type MeasurementSpec, type PlanSpec, type LinearCountSpec } from '../../engine/index.js';
+import { estimateAfterStop } from '../../engine/estimation/index.js';
 import {
   OUTCOME_WORDS,
   itemHorizon,
@@ -14,11 +14,11 @@ import {
   resultTotal,
   type IntactRunRead,
   type RunCatalogue,
-} from '../inspection/index.js';
-import { SettingsRepository, localOffset, type Settings } from '../store/index.js';
+} from '../../inspection/index.js';
+import { SettingsRepository, localOffset, type Settings } from '../../store/index.js';
 import { modelChart } from './modelChartData.js';
 import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
-import { naiveQualityEstimate } from '../engine/estimation/naiveQualityEstimate.js';
+import { naiveQualityEstimate } from '../../engine/estimation/naiveQualityEstimate.js';
 import type {
   BoundaryStep,
   DecisionRecordInput,
@@ -28,8 +28,8 @@ import type {
   RecordEntry,
   RecordPlan,
   RecordState,
-} from './recordInput.js';
-import { softwareIdentity, type SoftwareIdentity } from './software.js';
+} from './decisionRecordInput.js';
+import { softwareIdentity, type SoftwareIdentity } from './softwareIdentity.js';
 
 export interface RecordContext {
   readonly settings: Pick<Settings, 'organisationName' | 'site' | 'confidenceLevel'>;

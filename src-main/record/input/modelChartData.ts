@@ -13,10 +13,10 @@ import {
   type GradedSpec,
   type LifetimeSpec,
   type MeasurementSpec,
-} from '../engine/index.js';
-import { RunEvidence, type RunEntryView, type RunState } from '../inspection/index.js';
-import { formatNumber } from './format.js';
-import type { ChartPoint, ModelRecordDetail } from './recordInput.js';
+} from '../../engine/index.js';
+import { RunEvidence, type RunEntryView, type RunState } from '../../inspection/index.js';
+import { formatNumber } from '../pdf/format.js';
+import type { ChartPoint, ModelRecordDetail } from './decisionRecordInput.js';
 
 /** A plan whose record shows its lines and evidence in natural units (no acceptance numbers). */
 type ModelPartsSpec = MeasurementSpec | LifetimeSpec | GradedSpec;

@@ -1,7 +1,7 @@
-import { OUTCOME_WORDS } from '../inspection/runOutcome.js';
-import type { DecisionRecordInput, QualityEstimate, QualityLevel } from './recordInput.js';
+import { OUTCOME_WORDS } from '../../inspection/runOutcome.js';
+import type { DecisionRecordInput, QualityEstimate, QualityLevel } from '../input/decisionRecordInput.js';
 import { formatCount, formatFixed, formatNumber, formatTimestamp } from './format.js';
-import type { RecordLayout } from './pageLayout.js';
+import type { RecordLayout } from './recordLayout.js';
 import { stateHeadline } from './titleBlock.js';
 
 const MODEL_NAMES = {
