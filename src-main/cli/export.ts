@@ -24,7 +24,7 @@ export const command: Command = {
     const out = requireFlag<string>(values, 'out', flags);
     const input = await recordInputFor(args, runId, 'export', io);
     if (input === null) return EXIT_FAILURE;
-    const csv = entriesToCsv(input.entries, input.plan.model);
+    const csv = entriesToCsv(input.entries);
     if (out === '-') io.stdout(csv);
     else await writeFile(out, csv, 'utf8');
     return EXIT_OK;

@@ -8,11 +8,14 @@
  */
 export { PlanParameterError } from './errors.js';
 export { countNoun, countOf } from './countWords.js';
+export { formatNumber, formatFixed, formatCount, withUnit, percentText } from './numberText.js';
 export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, GradedSpec, LinearCountSpec, FitMode, ModelName, SpecOf } from './spec.js';
 
 // The one contract and its registry.
 export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision } from './models/sequentialModel.js';
 export { modelNames, modelLabels, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
+export type { RecordLines, RecordRow, RecordQuality, RecordPlanLines, RecordEvidenceLines, RecordEstimate, RecordChart, RecordPathPoint, ChartPoint } from './models/recordLines.js';
+export { linearCountPlanRows, type LinearCountPlanFigures } from './models/linearCountRecordLines.js';
 export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, LimitRowOf, Observation, Evidence } from './models/registry.js';
 export type { LookAhead } from './lookAhead.js';
 

@@ -146,7 +146,10 @@ export function evidenceFrame(spec: PlanSpec, live: InspectionLive): InspectionF
   }
   if (spec.model === 'graded' && live.model === 'graded') {
     const plan = gradedPlan(spec);
-    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
+    const boundaries = gradedBoundaries(plan);
+    // Far enough to show where acceptance first becomes possible, so both lines are in view.
+    const firstAcceptance = Math.ceil(boundaries.h1 / boundaries.slope);
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1, firstAcceptance - live.n), plan.truncation);
     return {
       model: 'graded',
       horizon,
@@ -154,7 +157,7 @@ export function evidenceFrame(spec: PlanSpec, live: InspectionLive): InspectionF
       lnA: plan.lnA,
       lnB: plan.lnB,
       truncation: plan.truncation,
-      demerits: gradedBoundaries(plan).demerits,
+      demerits: boundaries.demerits,
     };
   }
   if ((spec.model === 'passfail' || spec.model === 'count') && live.model === undefined) return linearFrame(spec, live);
@@ -190,4 +193,15 @@ export function withStatistics(spec: PlanSpec, entries: readonly RunEntryView[])
     evidence.add(entry.result);
     return { ...entry, after: pointOf(evidence.state()) };
   });
+}
+
+/** A run's picture: each entry with the statistics after it, and the frame it is drawn in (the screens and the record alike). */
+export function runPicture(spec: PlanSpec, results: readonly RunEntryView[], state: RunState): { entries: InspectionEntry[]; frame: InspectionFrame } {
+  return { entries: withStatistics(spec, results), frame: evidenceFrame(spec, runLive(spec, state)) };
+}
+
+/** The points of the evidence path: the start of the run, then the statistics after each counted entry. */
+export function evidencePathPoints(spec: PlanSpec, entries: readonly InspectionEntry[]): Array<NonNullable<InspectionEntry['after']>> {
+  const plan = planOf(spec);
+  return [pointOf(plan.state(plan.emptyEvidence())), ...entries.flatMap((entry) => (entry.after === null ? [] : [entry.after]))];
 }

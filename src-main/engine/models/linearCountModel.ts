@@ -9,6 +9,7 @@ import { linearCountWork } from './linearCountWork.js';
 import { resolvePlan, type ResolvedPlan } from '../resolvePlan.js';
 import type { LinearCountSpec } from '../spec.js';
 import type { EvidenceDecision, ModelLabels, SequentialModel } from './sequentialModel.js';
+import { linearCountRecordLines, type LinearCountRecordWords } from './linearCountRecordLines.js';
 
 /** n items and their cumulative count (nonconforming items or nonconformities). */
 export interface LinearCountEvidence {
@@ -39,6 +40,8 @@ export interface LinearCountEntry<O> {
   problem(observation: unknown): string | null;
   /** What one result adds to the cumulative count. */
   count(observation: O): number;
+  /** How its decision record names the count and the results. */
+  record: LinearCountRecordWords<O>;
 }
 
 /**
@@ -76,5 +79,6 @@ export function linearCountModel<S extends LinearCountSpec, O>(
     limitRows: (plan, horizon) => linearCountLimitRows(plan.lines, plan.lines.truncation === null ? horizon : Math.min(horizon, plan.lines.truncation)),
     estimateWork: (spec, curvePoints) => linearCountWork(spec, curvePoints),
     design: (spec, options = {}) => designLinearCountPlan(spec, options),
+    recordLines: (plan) => linearCountRecordLines(plan, entry.labels, entry.record),
   };
 }

@@ -11,6 +11,7 @@ import { lifetimeModel } from './lifetime/lifetimeModel.js';
 import { measurementModel } from './measurement/measurementModel.js';
 import { passFailModel } from './passfail/passFailModel.js';
 import type { DesignOptions, ModelLabels, ModelShapes, SequentialModel } from './sequentialModel.js';
+import type { RecordLines } from './recordLines.js';
 
 const models = {
   passfail: passFailModel,
@@ -79,6 +80,8 @@ export interface SequentialPlan<M extends ModelName = ModelName> {
   liveState(state: EvidenceState): PlanLiveState;
   /** Rows of the limits table up to `horizon` (items, or failure counts for lifetime), none past the truncation. */
   limitRows(horizon: number): LimitRowOf<M>[];
+  /** What a decision record prints of the plan, in the model's words and natural units. */
+  recordLines(): RecordLines<{ design: DesignOf<M>; state: EvidenceState; observation: Observation; row: LimitRowOf<M> }>;
 }
 
 /**
@@ -105,6 +108,7 @@ export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> 
     state: (evidence) => model.state(plan, evidence) as EvidenceState,
     liveState: (state) => model.liveState(plan, state) as PlanLiveState,
     limitRows: (horizon) => model.limitRows(plan, horizon) as LimitRowOf<S['model']>[],
+    recordLines: () => model.recordLines(plan) as unknown as ReturnType<SequentialPlan<S['model']>['recordLines']>,
   };
 }
 

@@ -6,6 +6,7 @@
 import type { Decision } from '../integerLines.js';
 import { checkCurvePoints, type PlanWorkEstimate } from '../planWork.js';
 import type { PlanSpec } from '../spec.js';
+import type { RecordLines } from './recordLines.js';
 
 /** Options every design takes; a model ignores the ones that do not apply to it. */
 export interface DesignOptions {
@@ -104,6 +105,8 @@ export interface SequentialModel<T extends ModelShapes> {
    * @throws PlanParameterError for an invalid spec or options.
    */
   design(spec: T['spec'], options?: DesignOptions): T['design'];
+  /** What a decision record prints of the plan, in the model's words and natural units (recordLines.ts). */
+  recordLines(plan: T['plan']): RecordLines<T>;
 }
 
 /** Throws unless curvePoints is an integer from 2 to 10001; returns it (default 51). */

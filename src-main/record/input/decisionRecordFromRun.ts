@@ -1,34 +1,23 @@
 /**
  * The glue from a real run to its decision record: the run journal (entries, voids, close), the
- * plan's exact figures from the engine, the settings (organisation, site, confidence level) and
- * the software's identity. The quality estimate is the sequential one once the run is decided.
+ * plan's exact figures and record lines from its model (through the registry), the run's picture
+ * (the frame the screens draw), the settings (organisation, site, confidence level) and the
+ * software's identity.
  */
-import { designLinearCountPlan, linearCountLimitRows, resolvePlan, decideLinearCount, isLinearCountSpec, PlanParameterError, type GradedSpec, type LifetimeSpec, type MeasurementSpec, type PlanSpec, type LinearCountSpec } from '../../engine/index.js';
-import { estimateAfterStop } from '../../engine/estimation/index.js';
+import { designPlan, planOf, type EvidenceState, type Observation, type RecordRow } from '../../engine/index.js';
 import {
   OUTCOME_WORDS,
-  itemHorizon,
   createRunCatalogue,
+  evidencePathPoints,
   localTimestamp,
   requireIntact,
   resultTotal,
+  runPicture,
   type IntactRunRead,
   type RunCatalogue,
 } from '../../inspection/index.js';
 import { SettingsRepository, localOffset, type Settings } from '../../store/index.js';
-import { modelChart } from './modelChartData.js';
-import { modelEstimate, modelEvidence, modelPlan, modelResultText } from './modelRecord.js';
-import { naiveQualityEstimate } from '../../engine/estimation/naiveQualityEstimate.js';
-import type {
-  BoundaryStep,
-  DecisionRecordInput,
-  EntryVoid,
-  QualityEstimate,
-  RecordDecision,
-  RecordEntry,
-  RecordPlan,
-  RecordState,
-} from './decisionRecordInput.js';
+import type { DecisionRecordInput, EntryVoid, QualityEstimate, RecordDecision, RecordEntry, RecordState } from './decisionRecordInput.js';
 import { softwareIdentity, type SoftwareIdentity } from './softwareIdentity.js';
 
 export interface RecordContext {
@@ -38,7 +27,6 @@ export interface RecordContext {
   readonly generatedAt: Date;
 }
 
-
 /**
  * `DR-<random part of the run id>-<first 8 hex of the fingerprint>`: the same journal gives the same
  * id, and a record of the run after more entries a different one. Short, so footers keep one line.
@@ -47,71 +35,8 @@ export function recordIdFor(runId: string, fingerprint: string): string {
   return `DR-${runId.split('-').at(-1)}-${fingerprint.slice(0, 8)}`;
 }
 
-function qualityUnit(spec: LinearCountSpec): string {
-  return spec.model === 'passfail' ? 'fraction nonconforming' : 'nonconformities per item';
-}
-
-/** The plan of a pass/fail or count run (the other models take modelRecordParts). */
-function linearSpec(spec: PlanSpec): LinearCountSpec {
-  if (isLinearCountSpec(spec)) return spec;
-  throw new Error(`a ${spec.model} plan has no acceptance numbers`);
-}
-
-/**
- * The plan, decision, estimate and chart of a measurement, lifetime or graded run, in its natural
- * units; the decision's numbers are the evidence as the run stands (as it closed, when closed).
- */
-function modelRecordParts(read: IntactRunRead, spec: MeasurementSpec | LifetimeSpec | GradedSpec, confidenceLevel: number) {
-  const { replay } = read;
-  const { plan } = replay.header;
-  const state = replay.evidence.state();
-  const close = replay.status === 'closed' ? replay.lastClose : null;
-  const { figures, rows } = modelPlan(spec);
-  const evidence = modelEvidence(spec, state);
-  const decision: RecordDecision = {
-    state: close === null ? 'continue' : closedState(close.rule, close.decision),
-    rule: close?.rule ?? (replay.lastClose === null ? state.rule ?? 'between the lines' : `none stands: the run was reopened after its decision (${replay.lastClose.decision}) by an override with a reason, and has not closed again`),
-    itemsInspected: state.n,
-    nonconformingFound: state.total,
-    finalLogLikelihoodRatio: state.llr,
-  };
-  const estimate = modelEstimate(spec, state, confidenceLevel);
-  return {
-    plan: { planId: plan.id, planName: plan.name, planVersion: String(plan.version), model: spec.model, producerRiskNominal: spec.alpha, consumerRiskNominal: spec.beta, ...figures } satisfies RecordPlan,
-    decision,
-    qualityEstimate: estimate === null || decision.state !== 'continue' ? estimate : { ...estimate, methodName: `Interim, the run is undecided: ${estimate.methodName}` },
-    modelDetail: { planRows: rows, decisionRows: evidence.rows, facts: evidence.facts, chart: modelChart(spec, replay.results, state) },
-    entries: recordEntries(read).map((entry, i) => ({ ...entry, resultText: modelResultText(spec, replay.results[i].result) })),
-  };
-}
-
-function recordPlan(read: IntactRunRead): RecordPlan {
-  const { plan } = read.replay.header;
-  const spec = linearSpec(plan.spec);
-  const design = designLinearCountPlan(spec, { curvePoints: 2 });
-  const unit = qualityUnit(spec);
-  const [symbol0, symbol1] = spec.model === 'passfail' ? ['p0', 'p1'] : ['lambda0', 'lambda1'];
-  return {
-    planId: plan.id,
-    planName: plan.name,
-    planVersion: String(plan.version),
-    model: spec.model,
-    acceptableQuality: { symbol: symbol0, value: design.hypotheses.theta0, unit },
-    rejectableQuality: { symbol: symbol1, value: design.hypotheses.theta1, unit },
-    producerRiskNominal: spec.alpha,
-    consumerRiskNominal: spec.beta,
-    producerRiskExact: design.exact.alpha,
-    consumerRiskExact: design.exact.beta,
-    boundaries: design.boundaries,
-    truncation: design.truncation === null ? null : { maxItems: design.truncation, rule: design.truncationRule },
-    // The exact ASN of the integer plan as run (with its truncation), not Wald's approximation.
-    averageSampleNumberAtAcceptable: design.exact.asnH0,
-    averageSampleNumberAtRejectable: design.exact.asnH1,
-  };
-}
-
-/** Every result in journal order, each void carried with the entry it cancels. */
-function recordEntries(read: IntactRunRead): RecordEntry[] {
+/** Every result in journal order, each void carried with the entry it cancels, its result in the model's words. */
+function recordEntries(read: IntactRunRead, resultText: (observation: Observation) => string): RecordEntry[] {
   const voids = new Map<number, EntryVoid>();
   for (const entry of read.entries) {
     if (entry.kind !== 'void') continue;
@@ -123,6 +48,7 @@ function recordEntries(read: IntactRunRead): RecordEntry[] {
     recordedAt: localTimestamp(result.time, result.offset),
     itemId: result.itemId ?? '',
     nonconformities: resultTotal(result.result),
+    resultText: resultText(result.result as Observation),
     category: result.category,
     note: result.note,
     actor: result.actor,
@@ -130,75 +56,33 @@ function recordEntries(read: IntactRunRead): RecordEntry[] {
   }));
 }
 
-/** The item count the record's chart draws up to: the screens' horizon rule (inspection/runPictures.ts) one item past the last. */
-export function evidenceHorizon(spec: LinearCountSpec, itemsInspected: number): number {
-  return itemHorizon(itemsInspected, 1, resolvePlan(spec).lines.truncation);
-}
-
-function boundarySteps(spec: LinearCountSpec, itemsInspected: number): BoundaryStep[] {
-  return linearCountLimitRows(resolvePlan(spec).lines, evidenceHorizon(spec, itemsInspected)).map((row) => ({
-    itemsInspected: row.n,
-    acceptanceNumber: row.accept,
-    rejectionNumber: row.reject,
-  }));
-}
-
 function closedState(rule: string, decision: 'accept' | 'reject'): RecordState {
   return rule.startsWith(`${decision} at truncation`) ? `${decision} at truncation` : decision;
 }
 
-function recordDecision(read: IntactRunRead): RecordDecision {
+/** The decision as the journal's close states it, or, while none stands, the evidence as it stands now. */
+function recordDecision(read: IntactRunRead, state: EvidenceState): RecordDecision {
   const { replay } = read;
   const close = replay.status === 'closed' ? replay.lastClose : null;
   if (close !== null) {
     return { state: closedState(close.rule, close.decision), rule: close.rule, itemsInspected: close.n, nonconformingFound: close.total, finalLogLikelihoodRatio: close.llr };
   }
-  const now = decideLinearCount(linearSpec(replay.header.plan.spec), replay.n, replay.total);
-  const reopened = replay.lastClose !== null;
+  const reopened = replay.lastClose;
   return {
     state: 'continue',
-    rule: reopened
-      ? `none stands: the run was reopened after its decision (${replay.lastClose?.decision}) by an override with a reason, and has not closed again; now ${now.rule}`
-      : now.rule,
-    itemsInspected: replay.n,
-    nonconformingFound: replay.total,
-    finalLogLikelihoodRatio: now.llr,
+    rule:
+      reopened === null
+        ? state.standing
+        : `none stands: the run was reopened after its decision (${reopened.decision}) by an override with a reason, and has not closed again; now ${state.standing}`,
+    itemsInspected: state.n,
+    nonconformingFound: state.total,
+    finalLogLikelihoodRatio: state.llr,
   };
 }
 
-/**
- * The quality estimate: for a decided run, Whitehead's bias-adjusted estimate and the stagewise
- * exact interval from the plan's exact stopping distribution; otherwise (or where that method does
- * not apply to the stop) the naive d/n with its fixed-sample interval, labelled as such.
- */
-export function recordQualityEstimate(spec: LinearCountSpec, decision: RecordDecision, confidenceLevel: number): QualityEstimate | null {
-  const { itemsInspected: n, nonconformingFound: total } = decision;
-  if (n === 0) return null;
-  const naive = naiveQualityEstimate({ model: spec.model, itemsInspected: n, nonconformities: total, confidenceLevel });
-  if (decision.state === 'continue') {
-    return { ...naive, methodName: `Interim, the run is undecided: ${naive.methodName}` };
-  }
-  try {
-    const after = estimateAfterStop(spec, { n, total, confidence: confidenceLevel });
-    const percent = `${Number((confidenceLevel * 100).toPrecision(3))} %`;
-    return {
-      methodName:
-        `Bias-adjusted estimate (Whitehead 1986) and exact ${percent} interval from the stagewise ordering of the ` +
-        `sample space (Armitage 1958; Jennison and Turnbull 2000, section 8.4), both from the exact stopping distribution of the plan as run`,
-      pointEstimate: after.biasAdjusted,
-      pointEstimateName: 'bias-adjusted',
-      naiveEstimate: after.naive,
-      confidenceLevel,
-      lower: after.interval.lower,
-      upper: after.interval.upper,
-      unit: naive.unit,
-    };
-  } catch (error) {
-    if (!(error instanceof PlanParameterError)) throw error;
-    // E.g. a run that went on past a stopping point after an override: the stopping distribution
-    // does not describe how it stopped, so only the naive figure can be given honestly.
-    return { ...naive, methodName: `The sequential estimate does not apply to this stop (${error.message}). ${naive.methodName}` };
-  }
+/** The estimate as the model gives it; while no decision stands, labelled interim. */
+function interimLabelled(estimate: QualityEstimate | null, decided: boolean): QualityEstimate | null {
+  return estimate === null || decided ? estimate : { ...estimate, methodName: `Interim, the run is undecided: ${estimate.methodName}` };
 }
 
 /** The time offsets the journal was written with, e.g. "UTC+01:00 (the inspecting computer's clock)". */
@@ -216,11 +100,16 @@ function inspectorsOf(read: IntactRunRead): string[] {
 
 /** The decision record of a run from one verified read of its journal. */
 export function decisionRecordFromRun(read: IntactRunRead, context: RecordContext): DecisionRecordInput {
-  const { header: runHeader, lastClose, status } = read.replay;
+  const { header: runHeader, lastClose, status, results } = read.replay;
   const { run, plan, source } = runHeader;
+  const { spec } = plan;
+  const lines = planOf(spec).recordLines();
   const opened = read.entries[0];
-  const model = isLinearCountSpec(plan.spec) ? null : modelRecordParts(read, plan.spec, context.settings.confidenceLevel);
-  const decision = model?.decision ?? recordDecision(read);
+  const state = read.replay.evidence.state();
+  const decision = recordDecision(read, state);
+  const decided = decision.state !== 'continue';
+  const planLines = lines.plan(designPlan(spec, { curvePoints: 2 }));
+  const picture = runPicture(spec, results, state);
   const generated = context.generatedAt;
   return {
     header: {
@@ -244,12 +133,21 @@ export function decisionRecordFromRun(read: IntactRunRead, context: RecordContex
       endedAt: status === 'closed' && lastClose !== null ? localTimestamp(lastClose.time, closeOffset(read)) : null,
       timeZone: timeZoneOf(read),
     },
-    plan: model?.plan ?? recordPlan(read),
-    entries: model?.entries ?? recordEntries(read),
-    boundarySteps: model === null ? boundarySteps(linearSpec(plan.spec), decision.itemsInspected) : [],
+    plan: {
+      planId: plan.id,
+      planName: plan.name,
+      planVersion: String(plan.version),
+      modelLine: lines.modelLine,
+      producerRiskNominal: spec.alpha,
+      consumerRiskNominal: spec.beta,
+      ...planLines,
+      rows: planLines.rows.map((row): RecordRow => [row[0], row[1]]),
+    },
+    entries: recordEntries(read, lines.resultText),
+    chart: lines.chart(picture.frame.limits as Parameters<typeof lines.chart>[0], evidencePathPoints(spec, picture.entries)),
     decision,
-    qualityEstimate: model === null ? recordQualityEstimate(linearSpec(plan.spec), decision, context.settings.confidenceLevel) : model.qualityEstimate,
-    ...(model === null ? {} : { modelDetail: model.modelDetail }),
+    evidence: lines.evidence(state),
+    qualityEstimate: interimLabelled(lines.estimate(state, decided, context.settings.confidenceLevel), decided),
     outcome: read.row.outcome,
     history: read.history.map((event) =>
       event.kind === 'decision'
@@ -257,7 +155,7 @@ export function decisionRecordFromRun(read: IntactRunRead, context: RecordContex
         : { sequence: event.seq, at: event.at, actor: event.actor, text: `${OUTCOME_WORDS.reopened}: ${event.reason}` },
     ),
     fingerprint: read.fingerprint,
-    interim: decision.state === 'continue',
+    interim: !decided,
     approval: { inspectedBy: run.inspector, reviewedBy: null },
   };
 }

@@ -1,3 +1,4 @@
+import { countNoun, countOf } from '../../countWords.js';
 import type { CountSpec } from '../../spec.js';
 import { linearCountModel } from '../linearCountModel.js';
 
@@ -17,4 +18,12 @@ export const countModel = linearCountModel<CountSpec, CountObservation>('count',
       ? null
       : `a count plan takes a whole number of nonconformities (0 or more), not ${JSON.stringify(result)}`,
   count: (result) => result,
+  record: {
+    modelLine: 'count (nonconformities per item; Poisson SPRT)',
+    qualityUnit: 'nonconformities per item',
+    counted: 'nonconformities',
+    countedNoun: (total) => countNoun(total, 'nonconformity', 'nonconformities'),
+    countUnit: 'count',
+    resultText: (result) => countOf(result, 'nonconformity', 'nonconformities'),
+  },
 });

@@ -1,4 +1,5 @@
 import { gradedWork } from './gradedWork.js';
+import { gradedRecordLines } from './gradedRecordLines.js';
 import type { GradedSpec } from '../../spec.js';
 import { withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
 import { designGradedPlan, gradedLiveState, type GradedDesign, type GradedLiveState } from './gradedDesign.js';
@@ -92,4 +93,5 @@ export const gradedModel: SequentialModel<{
   limitRows: (plan, horizon) => gradedLimitRows(plan, plan.truncation === null ? horizon : Math.min(horizon, plan.truncation)),
   estimateWork: gradedWork,
   design: designGradedPlan,
+  recordLines: gradedRecordLines,
 };

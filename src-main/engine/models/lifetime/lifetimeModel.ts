@@ -1,4 +1,5 @@
 import { lifetimeWork } from './lifetimeWork.js';
+import { lifetimeRecordLines } from './lifetimeRecordLines.js';
 import type { LifetimeSpec } from '../../spec.js';
 import type { EvidenceDecision, SequentialModel } from '../sequentialModel.js';
 import { designLifetimePlan, lifetimeLiveState, type LifetimeDesign, type LifetimeLiveState } from './lifetimeDesign.js';
@@ -102,4 +103,5 @@ export const lifetimeModel: SequentialModel<{
   limitRows: (plan, horizon) => lifetimeLimitRows(plan, plan.maxFailures === null ? horizon : Math.min(horizon, plan.maxFailures)),
   estimateWork: lifetimeWork,
   design: designLifetimePlan,
+  recordLines: lifetimeRecordLines,
 };

@@ -1,4 +1,5 @@
 import { measurementWork } from './measurementWork.js';
+import { measurementRecordLines } from './measurementRecordLines.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
 import { designMeasurementPlan, measurementLiveState, type MeasurementDesign, type MeasurementLiveState } from './measurementDesign.js';
@@ -79,4 +80,5 @@ export const measurementModel: SequentialModel<{
   limitRows: (plan, horizon) => measurementLimitRows(plan, plan.truncation === null ? horizon : Math.min(horizon, plan.truncation)),
   estimateWork: measurementWork,
   design: designMeasurementPlan,
+  recordLines: measurementRecordLines,
 };

@@ -14,4 +14,12 @@ export const passFailModel = linearCountModel<PassFailSpec, PassFailObservation>
   labels: { title: 'pass/fail', quality: 'p', hypotheses: ['p0', 'p1'], entry: ['item', 'items'] },
   problem: (result) => (result === 'pass' || result === 'fail' ? null : `a passfail plan takes "pass" or "fail", not ${JSON.stringify(result)}`),
   count: (result) => (result === 'fail' ? 1 : 0),
+  record: {
+    modelLine: 'passfail (each item conforming or nonconforming; binomial SPRT)',
+    qualityUnit: 'fraction nonconforming',
+    counted: 'nonconforming',
+    countedNoun: () => 'nonconforming',
+    countUnit: 'items',
+    resultText: (result) => (result === 'fail' ? 'nonconforming' : 'conforming'),
+  },
 });
