@@ -27,6 +27,9 @@ export interface BrowserHost {
 const maximumBodyBytes = 1_000_000;
 const apiPrefix = '/api/';
 
+/** Longer than Chromium keeps a used idle connection (300 s), so the browser is the one to close it. */
+const KEEP_ALIVE_MS = 310_000;
+
 /**
  * Serves the renderer and the channel contract over HTTP on 127.0.0.1 only: `POST /api/<channel>`
  * with a JSON body answers with the channel's result as JSON. No CORS headers are ever sent.
@@ -38,6 +41,11 @@ export async function startBrowserHost(options: BrowserHostOptions): Promise<Bro
       send(response, 500, 'application/json', JSON.stringify({ ok: false, code: 'internal', message: String(error) }));
     });
   });
+  // The browser closes an idle kept-alive connection, not the host: if the host closed it first
+  // (Node's default after 5 s), a request the browser sends on it at that moment fails to fetch,
+  // and a POST is not retried. Chromium lets a used idle connection go after 300 s.
+  server.keepAliveTimeout = KEEP_ALIVE_MS;
+  server.headersTimeout = KEEP_ALIVE_MS + 10_000;
 
   async function handle(request: IncomingMessage, response: ServerResponse): Promise<void> {
     const authority = checkAuthority(request, port);

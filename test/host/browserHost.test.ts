@@ -1,11 +1,18 @@
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
-import { request } from 'node:http';
+import { Agent, request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDispatcher } from '../../src-main/api/dispatcher.js';
 import { createHandlers } from '../../src-main/api/handlers/index.js';
 import { startBrowserHost, type BrowserHost } from '../../src-main/host/browserHost.js';
+import type * as RunnerModule from '../../src-main/api/design/designRunner.js';
+
+// The design runner as the built app has it (designs in a worker thread; the global setup builds it).
+const builtRunner = pathToFileURL(join(import.meta.dirname, '..', '..', 'build', 'main', 'api', 'design', 'designRunner.js')).href;
+const { createDesignRunner } = (await import(builtRunner)) as typeof RunnerModule;
+const designRunner = createDesignRunner();
 
 let host: BrowserHost;
 let rendererRoot: string;
@@ -13,11 +20,12 @@ let rendererRoot: string;
 beforeAll(async () => {
   rendererRoot = await mkdtemp(join(tmpdir(), 'tallyline-host-'));
   await writeFile(join(rendererRoot, 'index.html'), '<!doctype html><title>Tallyline</title>');
-  const dispatch = createDispatcher(createHandlers({ dataDirectory: rendererRoot }));
+  const dispatch = createDispatcher(createHandlers({ dataDirectory: rendererRoot, designRunner }));
   host = await startBrowserHost({ rendererRoot, dispatch, token: 'a'.repeat(48) });
 });
 
 afterAll(async () => {
+  await designRunner.close();
   await host.close();
   await rm(rendererRoot, { recursive: true, force: true });
 });
@@ -112,5 +120,47 @@ describe('the browser host', () => {
     expect(JSON.parse(refused.body)).toMatchObject({ ok: false, code: 'invalid-parameter', field: 'truncation' });
     const next = await call('/api/plan.limits', { method: 'POST', headers: authorized, body: nistExample });
     expect(JSON.parse(next.body)).toMatchObject({ ok: true });
+  });
+
+  it('answers other channels while a long design computes', { timeout: 30_000 }, async () => {
+    expect(designRunner.inWorker).toBe(true);
+    // A three-class graded plan over 31 curve points takes the engine a while (invented qualities).
+    const spec = { model: 'graded', classes: ['ok', 'minor', 'major'], p0: [0.92, 0.06, 0.02], p1: [0.8, 0.14, 0.06], alpha: 0.05, beta: 0.1 };
+    const order: string[] = [];
+    const design = call('/api/plan.design', { method: 'POST', headers: authorized, body: JSON.stringify({ spec, curvePoints: 31 }) }).then((answer) => {
+      order.push('plan.design');
+      return answer;
+    });
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    const settings = await call('/api/settings.get', { method: 'POST', headers: authorized, body: 'null' });
+    order.push('settings.get');
+    expect(JSON.parse(settings.body)).toMatchObject({ ok: true });
+    expect(JSON.parse((await design).body)).toMatchObject({ ok: true, value: { superseded: false, design: { model: 'graded' } } });
+    expect(order).toEqual(['settings.get', 'plan.design']);
+  });
+
+  it('keeps an idle connection open longer than the 5 s that made requests fail to fetch', { timeout: 20_000 }, async () => {
+    const agent = new Agent({ keepAlive: true, maxSockets: 1 });
+    const post = () =>
+      new Promise<{ status: number; socket: unknown }>((resolve, reject) => {
+        const outgoing = request(
+          { host: '127.0.0.1', port: host.port, path: '/api/plan.limits', method: 'POST', agent, headers: { host: `127.0.0.1:${host.port}`, ...authorized } },
+          (response) => {
+            response.resume();
+            response.on('end', () => resolve({ status: response.statusCode ?? 0, socket: outgoing.socket }));
+          },
+        );
+        outgoing.on('error', reject);
+        outgoing.end(nistExample);
+      });
+    try {
+      const first = await post();
+      await new Promise((resolve) => setTimeout(resolve, 6_000));
+      const second = await post();
+      expect([first.status, second.status]).toEqual([200, 200]);
+      expect(second.socket).toBe(first.socket);
+    } finally {
+      agent.destroy();
+    }
   });
 });

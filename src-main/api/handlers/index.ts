@@ -1,5 +1,6 @@
 import { createRunCatalogue, type RunCatalogue, type RunService } from '../../inspection/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
+import type { DesignRunner } from '../design/designRunner.js';
 import { createPlanHandlers } from './planHandlers.js';
 import { createInspectionHandlers } from './inspectionHandlers.js';
 import { createRecordHandlers } from './recordHandlers.js';
@@ -13,6 +14,8 @@ export interface HandlerContext {
   catalogue?: RunCatalogue;
   /** The run service behind the inspection channels; one is made when not given. */
   runService?: RunService;
+  /** Where plan designs run (a worker thread in the built app); one is made when not given. */
+  designRunner?: DesignRunner;
 }
 
 /** Every channel's handler, for either adapter. */

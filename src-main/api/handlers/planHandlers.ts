@@ -1,7 +1,8 @@
-import { checkPlanSpec, designPlan, isLinearCountSpec, klDivergences, waldBoundaries, type PlanSpec } from '../../engine/index.js';
+import { checkPlanSpec, isLinearCountSpec, klDivergences, waldBoundaries, type PlanDesign, type PlanSpec } from '../../engine/index.js';
 import { PLAN_FORMAT, PlanRepository, planVersionSchema, type PlanVersion } from '../../store/plans.js';
 import { SourceRepository } from '../../store/sources.js';
-import type { DesignAnswer, LinearCountDesign, SavedPlan } from '../channels/planChannels.js';
+import type { DesignAnswer, SavedPlan } from '../channels/planChannels.js';
+import { createDesignRunner, SUPERSEDED, type DesignRunner } from '../design/designRunner.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
 
@@ -12,6 +13,8 @@ type PlanHandlers = Pick<
 
 export interface PlanHandlerContext {
   dataDirectory: string;
+  /** Where designs run (a worker thread in the built app); one is made when not given. */
+  designRunner?: DesignRunner;
 }
 
 /** Designs kept for quick return to a recent input (typing a digit and deleting it again). */
@@ -21,13 +24,18 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
   const plans = new PlanRepository(context.dataDirectory);
   const sources = new SourceRepository(context.dataDirectory);
   const latest = new LatestTicket();
-  const recentDesigns = new Map<string, LinearCountDesign>();
+  const recentDesigns = new Map<string, PlanDesign>();
+  const runner = context.designRunner ?? createDesignRunner();
 
-  function designOnce(spec: PlanSpec, curvePoints: number | undefined): LinearCountDesign {
+  /** A design from the recent ones, or from the runner (off the request path); SUPERSEDED when a newer edit of the stream came. */
+  async function designOnce(spec: PlanSpec, curvePoints: number | undefined, stream: string | undefined): Promise<PlanDesign | typeof SUPERSEDED> {
     const key = JSON.stringify([spec, curvePoints ?? null]);
     const known = recentDesigns.get(key);
     if (known) return known;
-    const design = designPlan(spec, { curvePoints });
+    // The engine's one check first, on this thread: a refused spec answers at once, without a worker.
+    checkPlanSpec(spec, { curvePoints });
+    const design = await runner.design(spec, { curvePoints }, stream);
+    if (design === SUPERSEDED) return design;
     recentDesigns.set(key, design);
     if (recentDesigns.size > designCacheSize) recentDesigns.delete(recentDesigns.keys().next().value as string);
     return design;
@@ -57,12 +65,15 @@ export function createPlanHandlers(context: PlanHandlerContext): PlanHandlers {
       }
       // Only the linear-count designs suggest a truncation; the other models are designed as given.
       if (!suggestTruncation || !isLinearCountSpec(spec)) {
-        return { superseded: false, spec, design: designOnce(spec, curvePoints) };
+        const design = await designOnce(spec, curvePoints, stream);
+        return design === SUPERSEDED ? { superseded: true } : { superseded: false, spec, design };
       }
       // The suggestion is computed on the untruncated lines; the plan then stops there.
-      const untruncated = designOnce({ ...spec, truncation: null }, curvePoints);
+      const untruncated = await designOnce({ ...spec, truncation: null }, curvePoints, stream);
+      if (untruncated === SUPERSEDED) return { superseded: true };
       const truncated = { ...spec, truncation: 'suggestedTruncation' in untruncated ? untruncated.suggestedTruncation : null };
-      return { superseded: false, spec: truncated, design: designOnce(truncated, curvePoints) };
+      const design = await designOnce(truncated, curvePoints, stream);
+      return design === SUPERSEDED ? { superseded: true } : { superseded: false, spec: truncated, design };
     },
 
     'plan.sources': async () =>
