@@ -224,6 +224,17 @@ describe('writeDecisionRecord', () => {
     expect(existsSync(path)).toBe(false);
   });
 
+  it('refuses an entry whose time has no offset, naming the entry and the field', async () => {
+    const input = decidedDemoRun();
+    input.entries[3] = { ...input.entries[3], recordedAt: '2025-03-14T08:02:11' };
+    await expect(renderDecisionRecord(input)).rejects.toThrow(/entries\[3\]\.recordedAt is "2025-03-14T08:02:11"; allowed: an ISO 8601 date-time with offset/);
+  });
+
+  it('refuses a record of inspected items without a quality estimate', async () => {
+    const input = { ...decidedDemoRun(), qualityEstimate: null };
+    await expect(renderDecisionRecord(input)).rejects.toThrow(/qualityEstimate is null; allowed: an estimate once items are inspected \(135 are\)/);
+  });
+
   it('refuses an interim flag that contradicts the decision', async () => {
     const input = { ...decidedDemoRun(), interim: true };
     await expect(renderDecisionRecord(input)).rejects.toThrow(/interim is true; allowed: false for a run in state 'accept'/);

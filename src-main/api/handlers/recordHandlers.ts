@@ -5,9 +5,8 @@ import {
   requireIntact,
   type IntactRunRead,
   type RunCatalogue,
-  matchesRunFilter,
+  runHistory,
   runPicture,
-  type RunRow,
 } from '../../inspection/index.js';
 import { entriesToCsv } from '../../record/input/entriesToCsv.js';
 import { decisionRecordFromRun, recordContextFor } from '../../record/input/decisionRecordFromRun.js';
@@ -52,15 +51,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   }
 
   return {
-    'record.history': async (filter) => {
-      const every = await catalogue.listRuns();
-      return {
-        rows: every.filter((row) => matchesRunFilter(row, filter)),
-        sources: sourcesOf(every),
-        totalRuns: every.length,
-        damaged: every.filter((row) => row.outcome === 'damaged').length,
-      };
-    },
+    'record.history': async (filter) => runHistory(await catalogue.listRuns(), filter),
 
     'record.open': async ({ runId }) => {
       const { read, input } = await recordOf(runId);
@@ -90,11 +81,4 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
       return { fileName: `${fileStem(input, 'entries')}.csv`, interim: input.interim, text: entriesToCsv(input.entries) };
     },
   };
-}
-
-/** Every source that has runs, by name, for the Records filter. */
-function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }> {
-  const named = new Map<string, string>();
-  for (const row of rows) if (row.sourceId !== null && row.sourceName !== null) named.set(row.sourceId, row.sourceName);
-  return [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
 }
