@@ -109,6 +109,9 @@ describe('decision records of every model but pass/fail, in their own words and 
     // 2T/chi2(0.95; 6) and 2T/chi2(0.05; 4): chi-square table values 12.592 and 0.7107 (from memory [M]).
     expect(estimate?.lower).toBeCloseTo((2 * time) / 12.592, 0);
     expect((estimate?.upper ?? 0) / ((2 * time) / 0.7107)).toBeCloseTo(1, 3);
+    // Both lines are drawn: the rejection line from where it meets T = 0, r = 2197.22/693.15 = 3.17 (hand computation).
+    expect(input.chart.reject[0]?.[1]).toBeCloseTo(2197.2245 / 693.1472, 4);
+    expect(input.chart.reject.length).toBeGreaterThanOrEqual(2);
     expect(renderPageToPng(lifetime.pdf, 'models-lifetime', 1, 80)).toMatch(/\.png$/);
     expect(renderPageToPng(lifetime.pdf, 'models-lifetime', 2, 80)).toMatch(/\.png$/);
   });
@@ -124,6 +127,8 @@ describe('decision records of every model but pass/fail, in their own words and 
     expect(text).toContain('class shares: conforming 0.4, minor 0.2, major 0.4');
     expect(text).toContain('Naive share of items not conforming with the exact Clopper-Pearson 90 % interval');
     expect(input.entries.map((entry) => entry.resultText)).toEqual(['conforming', 'minor', 'major', 'conforming', 'major']);
+    // The chart reaches where acceptance first becomes possible: D <= 0.1948 n - 2.4050 from n = 13.
+    expect(input.chart.accept.find((point) => point !== null)?.[0]).toBe(13);
     expect(renderPageToPng(graded.pdf, 'models-graded', 1, 80)).toMatch(/\.png$/);
   });
 });

@@ -4,7 +4,7 @@
  * (the frame the screens draw), the settings (organisation, site, confidence level) and the
  * software's identity.
  */
-import { designPlan, planOf, type EvidenceState, type Observation, type RecordRow } from '../../engine/index.js';
+import { designPlan, planOf, type EvidenceState, type Observation } from '../../engine/index.js';
 import {
   OUTCOME_WORDS,
   createRunCatalogue,
@@ -141,7 +141,6 @@ export function decisionRecordFromRun(read: IntactRunRead, context: RecordContex
       producerRiskNominal: spec.alpha,
       consumerRiskNominal: spec.beta,
       ...planLines,
-      rows: planLines.rows.map((row): RecordRow => [row[0], row[1]]),
     },
     entries: recordEntries(read, lines.resultText),
     chart: lines.chart(picture.frame.limits as Parameters<typeof lines.chart>[0], evidencePathPoints(spec, picture.entries)),

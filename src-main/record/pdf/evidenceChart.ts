@@ -25,7 +25,7 @@ const CHART_HEIGHT = 190;
 const AXIS_ROOM = 50;
 
 /** Tick spacing of 1, 2 or 5 times a power of ten, never below `minimum`. */
-export function niceStep(range: number, targetTicks: number, minimum = 0): number {
+function niceStep(range: number, targetTicks: number, minimum = 0): number {
   const raw = Math.max(range / targetTicks, minimum, Number.MIN_VALUE);
   const power = 10 ** Math.floor(Math.log10(raw));
   const step = [1, 2, 5, 10].map((m) => m * power).find((candidate) => candidate >= raw) ?? 10 * power;
