@@ -5,6 +5,7 @@
  */
 import { readdir } from 'node:fs/promises';
 import path from 'node:path';
+import { seededUniform32 } from '../engine/numerics/seededRandom.js';
 import { createRunService } from '../inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, folderNames } from '../store/index.js';
 import { DEMO_INSPECTORS, DEMO_ORGANISATION, DEMO_SITE, demoLots, demoPlans, demoSources } from './demoScenario.js';
@@ -47,18 +48,6 @@ export async function dataFolderContents(dataDirectory: string): Promise<string 
   return null;
 }
 
-/** mulberry32: a small, well-mixed 32-bit generator; enough for invented demo results. */
-function randomStream(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** A Poisson draw by multiplying uniforms (Knuth): fine for the small rates of the demo. */
 function poisson(rate: number, random: () => number): number {
   const limit = Math.exp(-rate);
@@ -70,7 +59,7 @@ function poisson(rate: number, random: () => number): number {
 export async function seedDemo(dataDirectory: string, options: DemoOptions = {}): Promise<DemoReport> {
   const found = await dataFolderContents(dataDirectory);
   if (found !== null) throw new DataFolderNotEmptyError(dataDirectory, found);
-  const random = randomStream(options.seed ?? 20261201);
+  const random = seededUniform32(options.seed ?? 20261201);
   const today = new Date();
   const start = options.start ?? new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate() - 35));
   let now = new Date(start.getTime() - 86_400_000);

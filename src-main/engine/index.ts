@@ -74,6 +74,11 @@ export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptio
 export { gradeIndex } from './models/graded/gradedModel.js';
 export type { GradedObservation, GradedEvidence, GradedEvidenceState, GradedLimitRow } from './models/graded/gradedModel.js';
 
+// Distributions the models and their screens share.
+export { binomialCdf } from './distributions/binomial.js';
+export { poissonCdf } from './distributions/poisson.js';
+export { normalCdf, normalQuantile } from './distributions/normal.js';
+
 // Bounds every plan is held to before any work is done.
 export { checkPlanWork, PLAN_LIMITS } from './planWork.js';
 export type { PlanWorkEstimate } from './planWork.js';

@@ -3,7 +3,7 @@
  * running sum and mean, the naive mean with its z interval, and the chart of the sum less n mu0.
  */
 import { countNoun } from '../../countWords.js';
-import { normalQuantile } from '../../numerics/normalDistribution.js';
+import { normalQuantile } from '../../distributions/normal.js';
 import { formatCount, formatFixed, formatNumber, percentText, withUnit } from '../../numberText.js';
 import { SEQUENTIAL_INTERVAL_NOTE, type RecordLines } from '../recordLines.js';
 import type { MeasurementDesign } from './measurementDesign.js';
