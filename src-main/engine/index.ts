@@ -8,6 +8,7 @@
  */
 export { PlanParameterError } from './errors.js';
 export { countNoun, countOf } from './countWords.js';
+export { formatNumber, formatFixed, formatCount, withUnit, percentText } from './numberText.js';
 export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, GradedSpec, LinearCountSpec, FitMode, ModelName, SpecOf } from './spec.js';
 
 // The one contract and its registry.
@@ -15,7 +16,9 @@ export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, Evidence
 export { frameHorizon, itemHorizon, MINIMUM_ITEM_HORIZON } from './models/sequentialModel.js';
 export { modelNames, modelLabels, modelFlags, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
 export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, PlanFrame, LimitRowOf, Observation, Evidence } from './models/registry.js';
-export { formatNumber, formatPercent, formatTable, NUMBER_TEXT } from './textFormat.js';
+export { formatPercent, formatTable, NUMBER_TEXT } from './textFormat.js';
+export type { RecordLines, RecordRow, RecordQuality, RecordPlanLines, RecordEvidenceLines, RecordEstimate, RecordChart, RecordPathPoint, ChartPoint } from './models/recordLines.js';
+export { linearCountPlanRows, type LinearCountPlanFigures } from './models/linearCountRecordLines.js';
 export type { LookAhead } from './lookAhead.js';
 
 // Pass/fail and count: the integer-line machinery they share.

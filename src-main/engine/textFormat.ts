@@ -10,15 +10,7 @@ export function formatTable(headers: readonly string[], rows: ReadonlyArray<read
   return [line(headers), ...rows.map(line)].join('\n');
 }
 
-/** A number with `digits` significant digits, without exponent noise for ordinary sizes. */
-export function formatNumber(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined) return '-';
-  if (!Number.isFinite(value)) return String(value);
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  if (magnitude >= 1e-4 && magnitude < 1e7) return String(Number(value.toPrecision(digits)));
-  return value.toExponential(digits - 1);
-}
+export { formatNumber } from './numberText.js';
 
 /** A probability as a percentage with two decimals. */
 export function formatPercent(value: number): string {

@@ -51,3 +51,14 @@ export function withStatistics(spec: PlanSpec, entries: readonly RunEntryView[])
     return { ...entry, after: plan.point(evidence.state()) };
   });
 }
+
+/** A run's picture: each entry with the statistics after it, and the frame it is drawn in (the screens and the record alike). */
+export function runPicture(spec: PlanSpec, results: readonly RunEntryView[], state: RunState): { entries: InspectionEntry[]; frame: InspectionFrame } {
+  return { entries: withStatistics(spec, results), frame: evidenceFrame(spec, runLive(spec, state)) };
+}
+
+/** The points of the evidence path: the start of the run, then the statistics after each counted entry. */
+export function evidencePathPoints(spec: PlanSpec, entries: readonly InspectionEntry[]): Array<NonNullable<InspectionEntry['after']>> {
+  const plan = planOf(spec);
+  return [plan.point(plan.state(plan.emptyEvidence())), ...entries.flatMap((entry) => (entry.after === null ? [] : [entry.after]))];
+}

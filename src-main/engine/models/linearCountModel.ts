@@ -10,6 +10,7 @@ import { resolvePlan, type ResolvedPlan } from '../resolvePlan.js';
 import type { LinearCountSpec } from '../spec.js';
 import { linearCountEvidenceText, readableLinearCountPlan } from './linearCountText.js';
 import { frameHorizon, MINIMUM_ITEM_HORIZON, type EntryText, type EvidenceDecision, type ModelFlags, type ModelLabels, type SequentialModel } from './sequentialModel.js';
+import { linearCountRecordLines, type LinearCountRecordWords } from './linearCountRecordLines.js';
 
 /** n items and their cumulative count (nonconforming items or nonconformities). */
 export interface LinearCountEvidence {
@@ -64,6 +65,8 @@ export interface LinearCountEntry<S extends LinearCountSpec, O> {
   /** True when one item can carry more than one count, so a rejection number above n is possible. */
   readonly countCanExceedItems: boolean;
   readonly flags: ModelFlags<S>;
+  /** How its decision record names the count and the results. */
+  record: LinearCountRecordWords<O>;
 }
 
 /**
@@ -128,5 +131,6 @@ export function linearCountModel<S extends LinearCountSpec, O>(
       state: () => ({}),
       summary: (state) => ({ n: state.n, total: state.total }),
     },
+    recordLines: (plan) => linearCountRecordLines(plan, entry.labels, entry.record),
   };
 }

@@ -11,6 +11,7 @@ import { lifetimeModel } from './lifetime/lifetimeModel.js';
 import { measurementModel } from './measurement/measurementModel.js';
 import { passFailModel } from './passfail/passFailModel.js';
 import type { DesignOptions, EntryText, EvidencePoint, ModelFlags, ModelLabels, ModelShapes, SequentialModel } from './sequentialModel.js';
+import type { RecordLines } from './recordLines.js';
 
 const models = {
   passfail: passFailModel,
@@ -108,6 +109,8 @@ export interface SequentialPlan<M extends ModelName = ModelName> {
     state(state: EvidenceState): Record<string, unknown>;
     summary(state: EvidenceState): Record<string, unknown>;
   };
+  /** What a decision record prints of the plan, in the model's words and natural units. */
+  recordLines(): RecordLines<{ design: DesignOf<M>; state: EvidenceState; observation: Observation; row: LimitRowOf<M> }>;
 }
 
 /**
@@ -147,6 +150,7 @@ export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> 
       design: (design) => model.text.design(spec, design),
     },
     json: model.json,
+    recordLines: () => model.recordLines(plan) as unknown as ReturnType<SequentialPlan<S['model']>['recordLines']>,
   };
 }
 

@@ -6,6 +6,7 @@
 import type { Decision } from '../integerLines.js';
 import { checkCurvePoints, type PlanWorkEstimate } from '../planWork.js';
 import type { PlanSpec } from '../spec.js';
+import type { RecordLines } from './recordLines.js';
 
 /** Options every design takes; a model ignores the ones that do not apply to it. */
 export interface DesignOptions {
@@ -181,6 +182,8 @@ export interface SequentialModel<T extends ModelShapes> {
    * @throws PlanParameterError for an invalid spec or options.
    */
   design(spec: T['spec'], options?: DesignOptions): T['design'];
+  /** What a decision record prints of the plan, in the model's words and natural units (recordLines.ts). */
+  recordLines(plan: T['plan']): RecordLines<T>;
   /** What the evidence chart draws the run against, up to the horizon `frameHorizon` gives from the look-ahead. */
   frame(plan: T['plan'], live: T['live']): T['frame'];
   /** The point of the evidence path after a state. */

@@ -1,3 +1,4 @@
+import { countNoun, countOf } from '../../countWords.js';
 import type { CountSpec } from '../../spec.js';
 import { poissonDraw } from '../../distributions/poisson.js';
 import { linearCountFlags } from '../linearCountFlags.js';
@@ -31,4 +32,12 @@ export const countModel = linearCountModel<CountSpec, CountObservation>('count',
     [{ name: 'lambda0', kind: 'positive' }, { name: 'lambda1', kind: 'positive' }],
     '  --lambda0 L --lambda1 L    count: acceptable and rejectable nonconformities per unit, 0 < lambda0 < lambda1',
   ),
+  record: {
+    modelLine: 'count (nonconformities per item; Poisson SPRT)',
+    qualityUnit: 'nonconformities per item',
+    counted: 'nonconformities',
+    countedNoun: (total) => countNoun(total, 'nonconformity', 'nonconformities'),
+    countUnit: 'count',
+    resultText: (result) => countOf(result, 'nonconformity', 'nonconformities'),
+  },
 });

@@ -1,4 +1,5 @@
 import { gradedWork } from './gradedWork.js';
+import { gradedRecordLines } from './gradedRecordLines.js';
 import type { GradedSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
 import { formatNumber } from '../../textFormat.js';
@@ -121,8 +122,11 @@ export const gradedModel: SequentialModel<{
   estimateWork: gradedWork,
   design: designGradedPlan,
   frame(plan, live) {
-    // Far enough ahead to show where the run is expected to end under either hypothesis.
-    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1), plan.truncation);
+    // Far enough ahead to show where the run is expected to end under either hypothesis, and where
+    // acceptance first becomes possible, so both lines are in view.
+    const boundaries = gradedBoundaries(plan);
+    const firstAcceptance = Math.ceil(boundaries.h1 / boundaries.slope);
+    const horizon = itemHorizon(live.n, Math.max(live.expectedRemainingH0, live.expectedRemainingH1, firstAcceptance - live.n), plan.truncation);
     return {
       model: 'graded',
       horizon,
@@ -130,7 +134,7 @@ export const gradedModel: SequentialModel<{
       lnA: plan.lnA,
       lnB: plan.lnB,
       truncation: plan.truncation,
-      demerits: gradedBoundaries(plan).demerits,
+      demerits: boundaries.demerits,
     };
   },
   point: (state) => ({ n: state.n, total: state.total, llr: state.llr }),
@@ -177,4 +181,5 @@ export const gradedModel: SequentialModel<{
     state: (state) => ({ counts: state.counts, demerits: state.demerits }),
     summary: (state) => ({ n: state.n, counts: state.counts }),
   },
+  recordLines: gradedRecordLines,
 };

@@ -1,4 +1,5 @@
 import { lifetimeWork } from './lifetimeWork.js';
+import { lifetimeRecordLines } from './lifetimeRecordLines.js';
 import type { LifetimeSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
 import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
@@ -196,4 +197,5 @@ export const lifetimeModel: SequentialModel<{
     state: (state) => ({ time: state.time, failures: state.failures }),
     summary: (state) => ({ time: state.time, failures: state.failures }),
   },
+  recordLines: lifetimeRecordLines,
 };

@@ -1,4 +1,5 @@
 import { measurementWork } from './measurementWork.js';
+import { measurementRecordLines } from './measurementRecordLines.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
 import { normalQuantile } from '../../numerics/normalDistribution.js';
@@ -158,4 +159,5 @@ export const measurementModel: SequentialModel<{
     state: (state) => ({ sum: state.sum, mean: state.mean }),
     summary: (state) => ({ n: state.n, sum: state.sum }),
   },
+  recordLines: measurementRecordLines,
 };

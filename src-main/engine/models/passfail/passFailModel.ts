@@ -29,4 +29,12 @@ export const passFailModel = linearCountModel<PassFailSpec, PassFailObservation>
     [{ name: 'p0', kind: 'probabilities' }, { name: 'p1', kind: 'probabilities' }],
     '  --p0 P --p1 P              passfail: acceptable and rejectable fraction nonconforming, 0 < p0 < p1 < 1',
   ),
+  record: {
+    modelLine: 'passfail (each item conforming or nonconforming; binomial SPRT)',
+    qualityUnit: 'fraction nonconforming',
+    counted: 'nonconforming',
+    countedNoun: () => 'nonconforming',
+    countUnit: 'items',
+    resultText: (result) => (result === 'fail' ? 'nonconforming' : 'conforming'),
+  },
 });

@@ -1,4 +1,4 @@
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
 
 /** Ink colours: greys for structure, one dark blue for the run's own evidence. */
 export const INK = {

@@ -1,7 +1,7 @@
-import type { RecordEntry, RecordModel } from './recordInput.js';
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
-import { formatTimestamp, resultLabel } from './format.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import type { RecordEntry } from '../input/decisionRecordInput.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
+import { formatTimestamp } from './formatTimestamp.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 const CELL_PADDING = 3;
 const FONT_SIZE = TYPE_SIZE.small;
@@ -25,7 +25,7 @@ function sharedOffsetOf(entries: readonly RecordEntry[]): string | null {
 }
 
 /** Column widths from the widest content, capped, with the note column taking what is left. */
-function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], model: RecordModel, tableWidth: number): Column[] {
+function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], tableWidth: number): Column[] {
   const sharedOffset = sharedOffsetOf(entries);
   doc.font(FONT_REGULAR).fontSize(FONT_SIZE);
   // Measured in bold, the widest face used in a cell (titles, and nonconforming results).
@@ -39,7 +39,7 @@ function planColumns(doc: PDFKit.PDFDocument, entries: readonly RecordEntry[], m
     ['#', (entry) => String(entry.sequence), 40],
     [sharedOffset === null ? 'Time' : `Time (${sharedOffset})`, (entry) => timeText(entry, sharedOffset), 120],
     ['Item', (entry) => entry.itemId, 80],
-    ['Result', (entry) => entry.resultText ?? resultLabel(model, entry.nonconformities), model === 'passfail' || model === 'count' ? 80 : 130],
+    ['Result', (entry) => entry.resultText, 130],
     ['Category', (entry) => entry.category ?? '', 70],
     ['Note', (entry) => entry.note ?? '', Number.POSITIVE_INFINITY],
     ['Actor', (entry) => entry.actor, 110],
@@ -60,9 +60,9 @@ function voidText(entry: RecordEntry): string {
  * Every entry of the run, one row each, in journal order. The header repeats on each page; a row
  * never splits. A voided entry stays in the table, struck through, with its void and reason beneath.
  */
-export function drawEntriesTable(layout: RecordLayout, entries: readonly RecordEntry[], model: RecordModel): void {
+export function drawEntriesTable(layout: RecordLayout, entries: readonly RecordEntry[]): void {
   const { doc } = layout;
-  const columns = planColumns(doc, entries, model, layout.width);
+  const columns = planColumns(doc, entries, layout.width);
   const table = doc.struct('Table');
   layout.structureRoot.add(table);
 

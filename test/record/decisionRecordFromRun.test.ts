@@ -3,12 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designLinearCountPlan } from '../../src-main/engine/index.js';
 import { estimateAfterStop } from '../../src-main/engine/estimation/index.js';
 import { layout, verifyJournal } from '../../src-main/store/index.js';
-import { decisionRecordForRun, recordIdFor } from '../../src-main/record/fromRun.js';
-import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
-import { formatNumber } from '../../src-main/record/format.js';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
-import type { DecisionRecordInput } from '../../src-main/record/recordInput.js';
-import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
+import { decisionRecordForRun, recordIdFor } from '../../src-main/record/input/decisionRecordFromRun.js';
+import { fingerprintFromPdf } from '../../src-main/record/pdf/fingerprintFromPdf.js';
+import { formatNumber } from '../../src-main/engine/numberText.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
+import type { DecisionRecordInput } from '../../src-main/record/input/decisionRecordInput.js';
+import { INTERIM_NOTICE } from '../../src-main/record/pdf/titleBlock.js';
 import {
   INVENTED_ORGANISATION,
   INVENTED_SITE,
@@ -101,11 +101,12 @@ describe('the decision record of a decided run made through the run service', ()
   it('draws the evidence chart against steps reaching past the stop', () => {
     expect(text).toContain('Items inspected, n (items)');
     expect(text).toContain('acceptance number');
-    expect(input.boundarySteps[0].itemsInspected).toBe(1);
-    expect(input.boundarySteps.at(-1)!.itemsInspected).toBeGreaterThan(57);
+    const { accept, reject } = input.chart;
+    expect(reject[0]?.[0]).toBe(1);
+    expect(reject.at(-1)?.[0]).toBeGreaterThan(57);
     // The accepting step: 1 nonconforming is within the acceptance number at n = 57, not at 56.
-    expect(input.boundarySteps[56]).toMatchObject({ itemsInspected: 57, acceptanceNumber: 1 });
-    expect(input.boundarySteps[55]).toMatchObject({ itemsInspected: 56, acceptanceNumber: 0 });
+    expect(accept[56]).toEqual([57, 1]);
+    expect(accept[55]).toEqual([56, 0]);
   });
 
   it('lists every entry with sequence, item, result, category, note and actor, the voided one struck through with its reason', async () => {

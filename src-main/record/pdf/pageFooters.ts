@@ -1,6 +1,6 @@
-import type { DecisionRecordInput } from './recordInput.js';
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
-import { INK, TYPE_SIZE } from './pageLayout.js';
+import type { DecisionRecordInput } from '../input/decisionRecordInput.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
+import { INK, TYPE_SIZE } from './recordLayout.js';
 
 export function pageLabel(pageNumber: number, pageCount: number): string {
   return `page ${pageNumber} of ${pageCount}`;

@@ -1,5 +1,4 @@
-import type { RecordEntry, RecordModel } from './recordInput.js';
-import { resultLabel } from './format.js';
+import type { RecordEntry } from './decisionRecordInput.js';
 
 /** Column names of the entries CSV, in order. */
 export const ENTRY_CSV_COLUMNS = [
@@ -31,14 +30,14 @@ function csvField(value: string): string {
  *
  * References: Shafranovich, 2005, RFC 4180 "Common Format and MIME Type for CSV Files", section 2.
  */
-export function entriesToCsv(entries: readonly RecordEntry[], model: RecordModel): string {
+export function entriesToCsv(entries: readonly RecordEntry[]): string {
   const lines = [ENTRY_CSV_COLUMNS.join(',')];
   for (const entry of entries) {
     const row = [
       String(entry.sequence),
       entry.recordedAt,
       entry.itemId,
-      entry.resultText ?? resultLabel(model, entry.nonconformities),
+      entry.resultText,
       String(entry.nonconformities),
       entry.category ?? '',
       entry.note ?? '',

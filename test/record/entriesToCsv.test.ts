@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { ENTRY_CSV_COLUMNS, entriesToCsv } from '../../src-main/record/entriesCsv.js';
-import type { RecordEntry } from '../../src-main/record/recordInput.js';
+import { ENTRY_CSV_COLUMNS, entriesToCsv } from '../../src-main/record/input/entriesToCsv.js';
+import type { RecordEntry } from '../../src-main/record/input/decisionRecordInput.js';
 import { decidedDemoRun } from './demoRun.js';
 
 /** An independent RFC 4180 reader (quoted fields, doubled quotes, CRLF records) for the round trip. */
@@ -38,6 +38,7 @@ const awkward: RecordEntry = {
   recordedAt: '2025-03-14T08:02:11+01:00',
   itemId: 'KF,0007',
   nonconformities: 1,
+  resultText: 'nonconforming',
   category: 'burr "sharp"',
   note: 'line one\nline two, with comma\r\nand "quotes" – Müller, 25 µm',
   actor: 'Ó. Ní Bhriain',
@@ -46,13 +47,13 @@ const awkward: RecordEntry = {
 
 describe('entriesToCsv', () => {
   it('writes a header row and CRLF line ends', () => {
-    const csv = entriesToCsv([awkward], 'passfail');
+    const csv = entriesToCsv([awkward]);
     expect(csv.startsWith(`${ENTRY_CSV_COLUMNS.join(',')}\r\n`)).toBe(true);
     expect(csv.endsWith('\r\n')).toBe(true);
   });
 
   it('quotes commas, double quotes and line breaks, and they survive a round trip', () => {
-    const csv = entriesToCsv([awkward], 'passfail');
+    const csv = entriesToCsv([awkward]);
     expect(csv).toContain('"KF,0007"');
     expect(csv).toContain('"burr ""sharp"""');
     const [header, row] = parseCsv(csv);
@@ -75,14 +76,14 @@ describe('entriesToCsv', () => {
   });
 
   it('keeps non-ASCII text intact when encoded as UTF-8', () => {
-    const bytes = Buffer.from(entriesToCsv([awkward], 'passfail'), 'utf8');
+    const bytes = Buffer.from(entriesToCsv([awkward]), 'utf8');
     expect(bytes.toString('utf8')).toContain('Müller, 25 µm');
     expect(bytes.includes(Buffer.from('µ', 'utf8'))).toBe(true);
   });
 
   it('has one row per entry of the demo run, voided entries included', () => {
     const run = decidedDemoRun();
-    const rows = parseCsv(entriesToCsv(run.entries, run.plan.model));
+    const rows = parseCsv(entriesToCsv(run.entries));
     expect(rows.length).toBe(run.entries.length + 1);
     expect(rows.every((row) => row.length === ENTRY_CSV_COLUMNS.length)).toBe(true);
     expect(rows.filter((row) => row[8] === 'yes').length).toBe(run.entries.filter((entry) => entry.voided).length);

@@ -1,13 +1,12 @@
 import { createWriteStream } from 'node:fs';
 import type { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { validateDecisionRecordInput, type DecisionRecordInput } from './recordInput.js';
-import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './fonts.js';
-import { FOOTER_RESERVE, RecordLayout } from './pageLayout.js';
+import { validateDecisionRecordInput, type DecisionRecordInput } from '../input/decisionRecordInput.js';
+import { findRecordFonts, FONT_BOLD, FONT_MONO, FONT_REGULAR, type RecordFontFiles } from './recordFonts.js';
+import { FOOTER_RESERVE, RecordLayout } from './recordLayout.js';
 import { drawTitleBlock, subjectLine } from './titleBlock.js';
 import { drawDecisionSection, drawPlanSection, drawTestedSection } from './detailSections.js';
 import { drawEvidenceChart } from './evidenceChart.js';
-import { drawModelEvidenceChart } from './modelEvidenceChart.js';
 import { drawApprovalSection, drawCautionsSection, drawIntegritySection } from './closingSections.js';
 import { drawEntriesTable } from './entriesTable.js';
 import { drawPageFooters } from './pageFooters.js';
@@ -69,14 +68,13 @@ function drawRecord(doc: PDFKit.PDFDocument, input: DecisionRecordInput): void {
   drawTestedSection(layout, input);
   drawPlanSection(layout, input);
   layout.heading('Evidence', 250);
-  if (input.modelDetail === undefined) drawEvidenceChart(layout, input);
-  else drawModelEvidenceChart(layout, input.modelDetail.chart);
+  drawEvidenceChart(layout, input.chart);
   drawDecisionSection(layout, input);
   drawIntegritySection(layout, input);
   drawApprovalSection(layout, input);
   drawCautionsSection(layout);
   layout.heading(`Entries (${input.entries.length}, in journal order)`, 80);
-  drawEntriesTable(layout, input.entries, input.plan.model);
+  drawEntriesTable(layout, input.entries);
   root.end();
   drawPageFooters(doc, input);
 }

@@ -1,6 +1,6 @@
-import type { DecisionRecordInput } from './recordInput.js';
-import { FONT_MONO, FONT_REGULAR } from './fonts.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import type { DecisionRecordInput } from '../input/decisionRecordInput.js';
+import { FONT_MONO, FONT_REGULAR } from './recordFonts.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 /** Label printed before the fingerprint; fingerprintFromPdf looks for it. */
 export const FINGERPRINT_LABEL = 'Fingerprint (SHA-256 of the run journal):';

@@ -1,8 +1,7 @@
-import type { DecisionRecordInput, RecordState, RecordSubject } from './recordInput.js';
-import { countNoun } from '../engine/countWords.js';
-import { FONT_BOLD, FONT_REGULAR } from './fonts.js';
-import { formatCount, formatFixed, formatTimestamp } from './format.js';
-import { INK, TYPE_SIZE, type RecordLayout } from './pageLayout.js';
+import type { DecisionRecordInput, RecordState, RecordSubject } from '../input/decisionRecordInput.js';
+import { FONT_BOLD, FONT_REGULAR } from './recordFonts.js';
+import { formatTimestamp } from './formatTimestamp.js';
+import { INK, TYPE_SIZE, type RecordLayout } from './recordLayout.js';
 
 /** The decision as printed in the summary box. */
 export function stateHeadline(state: RecordState): string {
@@ -83,10 +82,7 @@ function drawDecisionBox(layout: RecordLayout, input: DecisionRecordInput): void
   const padding = 9;
   const innerWidth = layout.width - 2 * padding;
   const headline = stateHeadline(decision.state);
-  const facts =
-    input.modelDetail?.facts ??
-    `${formatCount(decision.itemsInspected)} ${countNoun(decision.itemsInspected, 'item')} inspected, ${formatCount(decision.nonconformingFound)} ` +
-    `${input.plan.model === 'count' ? countNoun(decision.nonconformingFound, 'nonconformity', 'nonconformities') : 'nonconforming'} found, final LLR ${formatFixed(decision.finalLogLikelihoodRatio)}`;
+  const facts = input.evidence.facts;
   doc.font(FONT_REGULAR).fontSize(TYPE_SIZE.body);
   const ruleHeight = doc.heightOfString(decision.rule, { width: innerWidth });
   const height = padding + 20 + ruleHeight + 2 + TYPE_SIZE.body + 4 + padding;
