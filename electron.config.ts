@@ -9,7 +9,25 @@ const configuration: Configuration = {
   productName: 'Tallyline',
   copyright: 'Copyright © 2026 the Tallyline authors',
   directories: { output: 'release', buildResources: 'assets' },
-  files: ['build/**/*', 'assets/**/*', 'package.json', '!**/*.map'],
+  // What the app runs, nothing else: the compiled main side and renderer (not their build stamps or
+  // anything else left in build/), the record fonts and the icon; from the production dependencies,
+  // no TypeScript sources, declarations, source maps or pdfkit's browser builds.
+  files: [
+    'package.json',
+    'build/main/**/*',
+    'build/renderer/**/*',
+    'assets/fonts/**/*',
+    'assets/icon.png',
+    '!**/*.map',
+    '!build/*/.build-inputs.json',
+    '!build/renderer/.bundle-modules.json',
+    '!node_modules/**/*.ts',
+    '!node_modules/**/*.d.cts',
+    '!node_modules/**/*.d.mts',
+    '!node_modules/zod/src/**',
+    '!node_modules/pdfkit/js/pdfkit.browser*',
+    '!node_modules/pdfkit/js/pdfkit.standalone.js',
+  ],
   extraMetadata: { main: 'build/main/electron/main.js' },
   asar: true,
   linux: {

@@ -3,7 +3,7 @@
  * and marked with their void's reason, sequence, time and actor.
  */
 import { writeFile } from 'node:fs/promises';
-import { entriesToCsv } from '../record/entriesCsv.js';
+import { entriesToCsv } from '../record/input/entriesToCsv.js';
 import type { Command } from './command.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { flag, parseFlags, requireFlag } from './flags.js';
@@ -24,7 +24,7 @@ export const command: Command = {
     const out = requireFlag<string>(values, 'out', flags);
     const input = await recordInputFor(args, runId, 'export', io);
     if (input === null) return EXIT_FAILURE;
-    const csv = entriesToCsv(input.entries, input.plan.model);
+    const csv = entriesToCsv(input.entries);
     if (out === '-') io.stdout(csv);
     else await writeFile(out, csv, 'utf8');
     return EXIT_OK;

@@ -3,6 +3,7 @@
  * After each entry is written and fsync'd it prints {"seq": N, "state": ...}; it stops right after
  * the line that carries a decision. A bad line: its number on stderr, exit 2, earlier lines kept.
  */
+import { planOf } from '../engine/index.js';
 import { RunUnreadableError, type RunService } from '../inspection/index.js';
 import { parseFeedLine } from './feedParse.js';
 import type { CliIo, Command } from './command.js';
@@ -45,12 +46,12 @@ export async function feedLines(service: RunService, lines: AsyncIterable<string
   if (opened.recovered !== null) {
     io.stderr(`tallyline feed: a torn final line (${opened.recovered.length} bytes) was moved to quarantine\n`);
   }
-  const spec = opened.plan.spec;
+  const plan = planOf(opened.plan.spec);
   const actor = options.actor ?? opened.run.inspector ?? 'station';
   let lineNumber = 0;
   for await (const line of lines) {
     lineNumber += 1;
-    const parsed = parseFeedLine(spec, line);
+    const parsed = parseFeedLine(plan, line);
     if (parsed === null) continue;
     if ('problem' in parsed) {
       io.stderr(`tallyline feed: line ${lineNumber}: ${parsed.problem}\n`);

@@ -4,6 +4,7 @@
  * allowed range, which `runCommand` turns into one line on stderr and exit code 2.
  */
 import { z } from 'zod';
+import { NUMBER_TEXT } from '../engine/textFormat.js';
 import { idSchema } from '../store/ids.js';
 import { noteText, SHORT_TEXT_LIMIT, shortText, visibleText } from '../store/textFields.js';
 
@@ -30,11 +31,9 @@ export interface Flag<T> {
   allowedFor?(raw: string): string;
 }
 
-type FlagTable = Record<string, Flag<unknown>>;
+export type FlagTable = Record<string, Flag<unknown>>;
 export type FlagValues<F extends FlagTable> = { [K in keyof F]?: F[K] extends Flag<infer T> ? T : never };
 
-/** A decimal number as a user types it (sign, digits, point, exponent): what every number flag and input line accepts. */
-export const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Thrown inside a flag's parse when the text fails its schema; parseFlags adds the flag name. */
 class FlagValueError extends Error {}

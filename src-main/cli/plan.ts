@@ -1,14 +1,13 @@
 /**
  * `tallyline plan`: designs a sequential plan and prints it, as JSON (--json) or as readable tables.
  */
-import { designPlan } from '../engine/index.js';
+import { designPlan, planOf } from '../engine/index.js';
 import type { Command } from './command.js';
 import { EXIT_OK } from './command.js';
 import { flag, parseFlags } from './flags.js';
-import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
-import { readablePlan } from './planText.js';
+import { planFlagsUsage, planSpecFromFlags, withPlanFlags } from './planFlags.js';
 
-const flags = { ...modelPlanFlags, points: flag.integer(2, 10001), json: flag.switch() };
+const flags = withPlanFlags({ points: flag.integer(2, 10001), json: flag.switch() });
 
 export const command: Command = {
   summary: 'design a sequential plan: lines, Wald and exact OC/ASN, single plan, limits, curve',
@@ -17,7 +16,6 @@ export const command: Command = {
     '       tallyline plan --model count --lambda0 L --lambda1 L --alpha A --beta B [...]',
     '       tallyline plan --model measurement|lifetime|graded ... (flags below)',
     planFlagsUsage,
-    modelPlanFlagsUsage,
     '  --points K                 qualities on the OC/ASN curve, 2 to 10001 (default 51)',
     '  --json                     print JSON instead of tables',
   ].join('\n'),
@@ -25,7 +23,7 @@ export const command: Command = {
     const values = parseFlags(args, flags);
     const spec = planSpecFromFlags(values);
     const design = designPlan(spec, { curvePoints: values.points ?? 51 });
-    io.stdout(values.json ? `${JSON.stringify(design, null, 2)}\n` : `${readablePlan(spec, design)}\n`);
+    io.stdout(values.json ? `${JSON.stringify(design, null, 2)}\n` : `${planOf(spec).text.design(design)}\n`);
     return EXIT_OK;
   },
 };

@@ -1,67 +1,12 @@
 /**
- * The flags that describe a plan, shared by `plan`, `replay` and `run start`:
- * --model, --p0/--p1 or --lambda0/--lambda1, --alpha, --beta, --truncate, --fit.
+ * The flags that describe a plan, shared by `plan`, `replay` and `run start`: --model and each
+ * model's own flags, as the model declares them (`flags` in its folder under engine/models). This
+ * file turns those declarations into flag readers and reads a spec through the model; it knows no
+ * model by name.
  */
-import type { PlanSpec, LinearCountSpec } from '../engine/index.js';
-import { NUMBER_TEXT, PROPORTION_ALLOWED, UsageError, flag, proportionAllowedFor, proportionFromText, rejectFlags, requireFlag } from './flags.js';
-import type { Flag } from './flags.js';
-
-export const planFlags = {
-  model: flag.choice('passfail', 'count'),
-  p0: flag.probability(),
-  p1: flag.probability(),
-  lambda0: flag.positive(),
-  lambda1: flag.positive(),
-  alpha: flag.probability(),
-  beta: flag.probability(),
-  truncate: flag.integer(1),
-  fit: flag.choice('wald', 'exact'),
-};
-
-export const planFlagsUsage = [
-  '  --model passfail|count     data model (required)',
-  '  --p0 P --p1 P              passfail: acceptable and rejectable fraction nonconforming, 0 < p0 < p1 < 1 (or in percent: 1%)',
-  '  --lambda0 L --lambda1 L    count: acceptable and rejectable nonconformities per unit, 0 < lambda0 < lambda1',
-  "  --alpha A --beta B         producer's and consumer's risk, each in (0, 1) or in percent (5%), alpha + beta < 1",
-  '  --truncate N               decide at N items at the latest (accept iff LLR <= 0 there)',
-  "  --fit wald|exact           Wald's lines (default) or lines fitted to the exact risks",
-].join('\n');
-
-/**
- * The plan spec from parsed plan flags; the engine then checks the relations (p0 < p1, alpha + beta < 1).
- *
- * @throws UsageError for a missing flag or one that belongs to the other model.
- */
-function linearCountSpecFromFlags(values: Record<string, unknown>): LinearCountSpec {
-  const model = requireFlag<LinearCountSpec['model']>(values, 'model', planFlags);
-  const alpha = requireFlag<number>(values, 'alpha', planFlags);
-  const beta = requireFlag<number>(values, 'beta', planFlags);
-  const common = {
-    alpha,
-    beta,
-    truncation: (values.truncate as number | undefined) ?? null,
-    fit: (values.fit as 'wald' | 'exact' | undefined) ?? 'wald',
-  };
-  if (model === 'passfail') {
-    rejectFlags(values, ['lambda0', 'lambda1'], 'belongs to --model count (use --p0 and --p1 for passfail)');
-    return {
-      model,
-      p0: requireFlag<number>(values, 'p0', planFlags),
-      p1: requireFlag<number>(values, 'p1', planFlags),
-      ...common,
-    };
-  }
-  rejectFlags(values, ['p0', 'p1'], 'belongs to --model passfail (use --lambda0 and --lambda1 for count)');
-  return {
-    model,
-    lambda0: requireFlag<number>(values, 'lambda0', planFlags),
-    lambda1: requireFlag<number>(values, 'lambda1', planFlags),
-    ...common,
-  };
-}
-
-// ---- Flags of the measurement, lifetime and graded models. ----
-
+import { modelFlags, modelLabels, modelNames, NUMBER_TEXT, type ModelName, type PlanFlag, type PlanFlagReader, type PlanSpec } from '../engine/index.js';
+import { PROPORTION_ALLOWED, UsageError, flag, proportionAllowedFor, proportionFromText, rejectFlags, requireFlag } from './flags.js';
+import type { Flag, FlagTable } from './flags.js';
 
 function numberFlag(name: string, allowed: string, accept: (value: number) => boolean): Flag<number> {
   return {
@@ -75,7 +20,7 @@ function numberFlag(name: string, allowed: string, accept: (value: number) => bo
   };
 }
 
-/** A probability, or (graded) a comma-separated list of them; the model decides which it needs. */
+/** A probability, or a comma-separated list of them; the model decides which it needs. */
 function probabilitiesFlag(name: string): Flag<number | number[]> {
   return {
     takesValue: true,
@@ -105,101 +50,89 @@ const classNamesFlag: Flag<string[]> = {
   },
 };
 
-/** Plan flags for `plan` and `replay`: every model, including measurement, lifetime and graded. */
-export const modelPlanFlags = {
-  ...planFlags,
-  model: flag.choice('passfail', 'count', 'measurement', 'lifetime', 'graded'),
-  p0: probabilitiesFlag('p0'),
-  p1: probabilitiesFlag('p1'),
-  mu0: numberFlag('mu0', 'a finite number', () => true),
-  mu1: numberFlag('mu1', 'a finite number', () => true),
-  sigma: flag.positive(),
-  'correct-overshoot': flag.switch(),
-  theta0: flag.positive(),
-  theta1: flag.positive(),
-  'max-time': flag.positive(),
-  'max-failures': flag.integer(1),
-  classes: classNamesFlag,
-  unit: flag.text('A unit (e.g. mm or unit-hours)', 40),
-};
+/** The flag reader of a declared plan flag. */
+function flagOf(declared: PlanFlag): Flag<unknown> {
+  switch (declared.kind) {
+    case 'probability':
+      return flag.probability();
+    case 'probabilities':
+      return probabilitiesFlag(declared.name);
+    case 'positive':
+      return flag.positive();
+    case 'finite':
+      return numberFlag(declared.name, 'a finite number', () => true);
+    case 'switch':
+      return flag.switch();
+    case 'classNames':
+      return classNamesFlag;
+    case 'integer':
+      return flag.integer(declared.min);
+    case 'choice':
+      return flag.choice(...declared.values);
+    case 'text':
+      return flag.text(declared.what, declared.limit);
+  }
+}
 
-export const modelPlanFlagsUsage = [
-  '  --model measurement        normal measurements, sigma known:',
-  '     --mu0 M --mu1 M --sigma S [--correct-overshoot]   (mu1 above or below mu0; the correction pulls both limits in by 0.5826 |mu1-mu0|/sigma)',
-  '  --model lifetime           exponential times to failure:',
-  '     --theta0 T --theta1 T [--max-time T] [--max-failures R]   (theta1 < theta0, MTBF in your time unit)',
-  '  --model graded             items graded into classes:',
-  '     --classes a,b,c --p0 P,P,P --p1 P,P,P   (each list sums to 1; the first class is the reference)',
-  '  --unit TEXT                measurement and lifetime: the unit of the values or test time, for display',
-].join('\n');
+/** The plan flags of every model: --model, then each model's own in the registry's order (a shared flag once). */
+function planFlagTable(): Record<string, Flag<unknown>> {
+  const table: Record<string, Flag<unknown>> = { model: flag.choice(...(modelNames as [ModelName, ...ModelName[]])) };
+  const kinds = new Map<string, string>();
+  for (const model of modelNames) {
+    for (const declared of modelFlags(model).own) {
+      const kind = JSON.stringify({ ...declared, name: undefined });
+      const before = kinds.get(declared.name);
+      if (before !== undefined && before !== kind) throw new Error(`the plan flag --${declared.name} is declared as two kinds (${before}, ${kind})`);
+      if (before === undefined) table[declared.name] = flagOf(declared);
+      kinds.set(declared.name, kind);
+    }
+  }
+  return table;
+}
 
-const OWN_FLAGS: Record<string, readonly string[]> = {
-  passfail: ['p0', 'p1'],
-  count: ['lambda0', 'lambda1'],
-  measurement: ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'truncate', 'unit'],
-  lifetime: ['theta0', 'theta1', 'max-time', 'max-failures', 'unit'],
-  graded: ['classes', 'p0', 'p1', 'truncate'],
-};
+export const planFlags = planFlagTable();
 
-/** `{ unit }` when --unit was given, else nothing (the spec then has no unit key). */
-function unitOf(values: Record<string, unknown>): { unit?: string } {
-  return typeof values.unit === 'string' ? { unit: values.unit } : {};
+/** The help lines of the plan flags: --model, each model's own lines, then the lines several models share (once). */
+function planFlagsHelp(): string {
+  const lines = modelNames.flatMap((model) => modelFlags(model).usage);
+  const shared = (line: string) => lines.indexOf(line) !== lines.lastIndexOf(line);
+  return [`  --model ${modelNames.join('|')}   data model (required)`, ...lines.filter((line) => !shared(line)), ...new Set(lines.filter(shared))].join('\n');
+}
+
+export const planFlagsUsage = planFlagsHelp();
+
+/** The models that name `flagName` as one of their hypotheses (e.g. --lambda0 for count). */
+function hypothesisOf(flagName: string): ModelName[] {
+  return modelNames.filter((model) => modelLabels(model).hypotheses.includes(flagName));
 }
 
 /**
- * The plan spec of any model from parsed `modelPlanFlags`; the engine then checks the relations.
+ * The plan spec of any model from parsed plan flags (other flags of the command are ignored);
+ * the engine then checks the relations (p0 < p1, alpha + beta < 1).
  *
  * @throws UsageError for a missing flag or one that belongs to another model.
  */
 export function planSpecFromFlags(values: Record<string, unknown>): PlanSpec {
-  const model = requireFlag<PlanSpec['model']>(values, 'model', modelPlanFlags);
-  if (model === 'passfail' || model === 'count') {
-    rejectFlags(values, ['mu0', 'mu1', 'sigma', 'correct-overshoot', 'theta0', 'theta1', 'max-time', 'max-failures', 'classes', 'unit'], `does not apply to --model ${model}`);
-    for (const name of ['p0', 'p1']) {
-      if (Array.isArray(values[name])) throw new UsageError(`--${name}`, 'a number in (0, 1)', `--${name} must be a number in (0, 1) for --model ${model} (got a list)`);
-    }
-    return linearCountSpecFromFlags(values);
+  const model = requireFlag<ModelName>(values, 'model', planFlags);
+  const { own, spec } = modelFlags(model);
+  const ownNames = new Set(own.map((declared) => declared.name));
+  for (const name of Object.keys(planFlags)) {
+    if (name === 'model' || ownNames.has(name) || values[name] === undefined) continue;
+    const owners = hypothesisOf(name);
+    const [h0, h1] = modelLabels(model).hypotheses;
+    rejectFlags(values, [name], owners.length > 0 ? `belongs to --model ${owners.join(' or ')} (use --${h0} and --${h1} for ${model})` : `does not apply to --model ${model}`);
   }
-  const own = new Set([...OWN_FLAGS[model], 'model', 'alpha', 'beta', 'points', 'json', 'results']);
-  const foreign = Object.keys(values).filter((name) => values[name] !== undefined && !own.has(name));
-  rejectFlags(values, foreign, `does not apply to --model ${model}`);
-  const alpha = requireFlag<number>(values, 'alpha', modelPlanFlags);
-  const beta = requireFlag<number>(values, 'beta', modelPlanFlags);
-  const need = <T>(name: keyof typeof modelPlanFlags): T => requireFlag<T>(values, name, modelPlanFlags);
-  if (model === 'measurement') {
-    return {
-      model,
-      mu0: need<number>('mu0'),
-      mu1: need<number>('mu1'),
-      sigma: need<number>('sigma'),
-      alpha,
-      beta,
-      truncation: (values.truncate as number | undefined) ?? null,
-      overshootCorrection: values['correct-overshoot'] === true,
-      ...unitOf(values),
-    };
-  }
-  if (model === 'lifetime') {
-    return {
-      model,
-      theta0: need<number>('theta0'),
-      theta1: need<number>('theta1'),
-      alpha,
-      beta,
-      maxTime: (values['max-time'] as number | undefined) ?? null,
-      maxFailures: (values['max-failures'] as number | undefined) ?? null,
-      ...unitOf(values),
-    };
-  }
-  const classes = need<string[]>('classes');
-  const vector = (name: 'p0' | 'p1'): number[] => {
-    const allowed = `${classes.length} probabilities, comma-separated, one per class of --classes, summing to 1`;
-    const value = values[name];
-    if (value === undefined) throw new UsageError(`--${name}`, allowed, `--${name} is required for --model graded: ${allowed}`);
-    if (!Array.isArray(value) || value.length !== classes.length) {
-      throw new UsageError(`--${name}`, allowed, `--${name} must be ${allowed} (got ${Array.isArray(value) ? value.length : 1})`);
-    }
-    return value as number[];
+  const read: PlanFlagReader = {
+    need: <V>(name: string) => requireFlag<V>(values, name, planFlags),
+    given: <V>(name: string) => values[name] as V | undefined,
+    refuse(name, allowed, message) {
+      throw new UsageError(`--${name}`, allowed, message);
+    },
   };
-  return { model, classes, p0: vector('p0'), p1: vector('p1'), alpha, beta, truncation: (values.truncate as number | undefined) ?? null };
+  return spec(read);
+}
+
+/** A command's own flags with the plan flags added (typed by the command's own and --model; the rest are read by planSpecFromFlags). */
+export function withPlanFlags<F extends FlagTable>(own: F): F & { model: Flag<ModelName> } {
+  return { ...planFlags, ...own } as F & { model: Flag<ModelName> };
 }

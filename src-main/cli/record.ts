@@ -2,11 +2,11 @@
  * `tallyline record`: write the decision record PDF of a run. A run not yet decided gets a record
  * marked interim on every page; a journal that does not verify gets no record (exit 1).
  */
-import { decisionRecordForRun } from '../record/fromRun.js';
-import { writeDecisionRecord } from '../record/renderDecisionRecord.js';
+import { decisionRecordForRun } from '../record/input/decisionRecordFromRun.js';
+import { writeDecisionRecord } from '../record/pdf/renderDecisionRecord.js';
 import { RunJournalUnverifiedError, RunNotFoundError } from '../inspection/index.js';
 import type { CliIo, Command } from './command.js';
-import type { DecisionRecordInput } from '../record/recordInput.js';
+import type { DecisionRecordInput } from '../record/input/decisionRecordInput.js';
 import { EXIT_FAILURE, EXIT_OK } from './command.js';
 import { UsageError, flag, parseFlags, requireFlag } from './flags.js';
 import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';

@@ -2,16 +2,14 @@
  * `tallyline run start` and `tallyline run show`: start an inspection run from a saved or inline
  * plan, and print a run as it stands. Keys of the JSON output are a contract other code depends on.
  */
-import { checkPlanSpec, type PlanSpec } from '../engine/index.js';
+import { checkPlanSpec, formatNumber, planOf, type PlanSpec } from '../engine/index.js';
 import {
   OUTCOME_WORDS,
   RunNotFoundError,
   createRunCatalogue,
   runView,
   type DecisionEvent,
-  type ItemResult,
   type RunService,
-  type RunState,
   type RunView,
   createRunService,
 } from '../inspection/index.js';
@@ -21,8 +19,7 @@ import type { Command } from './command.js';
 import { CliFailure, EXIT_FAILURE, EXIT_OK } from './command.js';
 import { checkedDataDirectory, dataDirectoryFlags, requireExistingRun } from './dataFolderFlag.js';
 import { UsageError, flag, parseFlags, rejectFlags, requireFlag } from './flags.js';
-import { planSpecFromFlags, modelPlanFlags, modelPlanFlagsUsage, planFlagsUsage } from './planFlags.js';
-import { formatNumber } from './table.js';
+import { planFlags, planFlagsUsage, planSpecFromFlags, withPlanFlags } from './planFlags.js';
 
 /** The checked data directory for these args, and a run service on it that the caller must close. */
 export async function runServiceFor(args: readonly string[], mayCreate = false): Promise<{ dataDirectory: string; service: RunService }> {
@@ -30,8 +27,7 @@ export async function runServiceFor(args: readonly string[], mayCreate = false):
   return { dataDirectory, service: createRunService({ dataDirectory }) };
 }
 
-const startFlags = {
-  ...modelPlanFlags,
+const startFlags = withPlanFlags({
   ...dataDirectoryFlags,
   plan: flag.id('plan'),
   'plan-version': flag.integer(1),
@@ -42,9 +38,9 @@ const startFlags = {
   inspector: flag.text("The inspector's name"),
   note: flag.note(),
   json: flag.switch(),
-};
+});
 
-const PLAN_FLAG_NAMES = Object.keys(modelPlanFlags);
+const PLAN_FLAG_NAMES = Object.keys(planFlags);
 
 export const startCommand: Command = {
   summary: 'start an inspection run from a saved plan (--plan) or plan flags',
@@ -53,7 +49,6 @@ export const startCommand: Command = {
     '                           [--lot-size N] [--inspector NAME] [--note TEXT] [--data-dir DIR] [--json]',
     '  --plan ID                  a saved plan (its latest version unless --plan-version is given)',
     planFlagsUsage,
-    modelPlanFlagsUsage,
     '  --source NAME              the supplier, line or machine; created when new',
     '  --lot LOT                  the lot or batch id',
     '  --json                     print {"run": ID}',
@@ -133,7 +128,7 @@ export function showJson(view: RunView, history: readonly DecisionEvent[]): unkn
     run: view.run,
     plan: view.plan,
     entries: view.entries.map((entry) => ({ seq: entry.seq, time: entry.time, result: entry.result, voided: entry.voided })),
-    state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr, ...modelFields(view.state) },
+    state: { decision: view.state.decision, n: view.state.n, total: view.state.total, llr: view.state.llr, ...planOf(view.plan.spec).json.state(view.state) },
     outcome: view.outcome,
     history,
     problems: view.problems,
@@ -149,29 +144,6 @@ function historyText(event: DecisionEvent): string {
     : `  seq ${event.seq}  ${event.at}  ${event.actor}: ${OUTCOME_WORDS.reopened}: ${event.reason}`;
 }
 
-function modelFields(state: RunState): Record<string, unknown> {
-  if (state.model === 'measurement') return { sum: state.sum, mean: state.mean };
-  if (state.model === 'lifetime') return { time: state.time, failures: state.failures };
-  if (state.model === 'graded') return { counts: state.counts, demerits: state.demerits };
-  return {};
-}
-
-/** One result as a line of `run show`: pass/fail, a count, a value, `time T`, `fail [T]` or a class name. */
-export function resultText(result: ItemResult): string {
-  if (typeof result !== 'object') return String(result);
-  if ('value' in result) return String(result.value);
-  if ('grade' in result) return result.grade;
-  if ('failure' in result) return result.time === undefined ? 'fail' : `fail ${result.time}`;
-  return `time ${result.time}`;
-}
-
-/** The model's evidence in words, for the state line of `run show`. */
-function evidenceText(state: RunState): string {
-  if (state.model === 'measurement') return `n = ${state.n}, sum = ${formatNumber(state.sum)}`;
-  if (state.model === 'lifetime') return `test time = ${formatNumber(state.time)}, failures = ${state.failures}`;
-  if (state.model === 'graded') return `n = ${state.n}, counts = ${state.counts.join('/')}, demerits = ${formatNumber(state.demerits)}`;
-  return `n = ${state.n}, total = ${state.total}`;
-}
 
 export const showCommand: Command = {
   summary: 'print a run: its plan, entries and state',
@@ -198,12 +170,13 @@ export const showCommand: Command = {
       io.stdout(`${visibleJson(showJson(view, read.history))}\n`);
     } else {
       const { run, state } = view;
+      const plan = planOf(view.plan.spec);
       io.stdout(
         [
           `Run ${run.id}: lot ${run.lot}, source ${run.sourceName}, plan ${run.planId} v${run.planVersion}`,
           `Outcome: ${OUTCOME_WORDS[view.outcome]}${read.damage === null ? '' : ` from seq ${read.damage.firstBadSeq}; the entries before it are shown, read-only`}`,
-          `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${evidenceText(state)}, LLR = ${formatNumber(state.llr)}`,
-          ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${resultText(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
+          `State: ${state.decision}${state.rule === null ? '' : ` (${state.rule})`}, ${plan.text.evidence(state)}, LLR = ${formatNumber(state.llr)}`,
+          ...view.entries.map((entry) => `  ${entry.seq}  ${entry.time}  ${plan.text.result(entry.result)}${entry.voided ? `  VOID: ${entry.voidReason}` : ''}`),
           ...(read.history.length === 0 ? [] : ['Decisions:', ...read.history.map(historyText)]),
           ...view.problems.map((problem) => `Problem at seq ${problem.seq}: ${problem.problem}`),
         ]

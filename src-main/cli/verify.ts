@@ -4,7 +4,7 @@
  * journal's. Exit 1 when either does not hold.
  */
 import { readFile } from 'node:fs/promises';
-import { fingerprintFromPdf, recordFingerprintMismatches } from '../record/fingerprintFromPdf.js';
+import { fingerprintFromPdf, recordFingerprintMismatches } from '../record/pdf/fingerprintFromPdf.js';
 import { RunNotFoundError, createRunCatalogue } from '../inspection/index.js';
 import { anchorHolds, type JournalVerification } from '../store/index.js';
 import type { Command } from './command.js';

@@ -31,7 +31,7 @@ export interface DemoLot {
   readonly lot: string;
   readonly lotSize: number;
   readonly day: number;
-  /** Fraction nonconforming (passfail) or nonconformities per item (count) the results are drawn from. */
+  /** The quality the results are drawn from, in the plan model's quality parameter (labels.quality): fraction nonconforming p for passfail, nonconformities per item lambda for count. */
   readonly trueQuality: number;
   /** Stop after this many results, undecided; absent to run to the plan's decision. */
   readonly stopAfter?: number;

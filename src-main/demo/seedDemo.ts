@@ -5,6 +5,8 @@
  */
 import { readdir } from 'node:fs/promises';
 import path from 'node:path';
+import { planOf, type PlanSpec, type SequentialPlan } from '../engine/index.js';
+import { seededUniform32 } from '../engine/numerics/seededRandom.js';
 import { createRunService } from '../inspection/index.js';
 import { PlanRepository, SettingsRepository, SourceRepository, folderNames } from '../store/index.js';
 import { DEMO_INSPECTORS, DEMO_ORGANISATION, DEMO_SITE, demoLots, demoPlans, demoSources } from './demoScenario.js';
@@ -47,30 +49,10 @@ export async function dataFolderContents(dataDirectory: string): Promise<string 
   return null;
 }
 
-/** mulberry32: a small, well-mixed 32-bit generator; enough for invented demo results. */
-function randomStream(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** A Poisson draw by multiplying uniforms (Knuth): fine for the small rates of the demo. */
-function poisson(rate: number, random: () => number): number {
-  const limit = Math.exp(-rate);
-  let count = 0;
-  for (let product = random(); product > limit; product *= random()) count += 1;
-  return count;
-}
-
 export async function seedDemo(dataDirectory: string, options: DemoOptions = {}): Promise<DemoReport> {
   const found = await dataFolderContents(dataDirectory);
   if (found !== null) throw new DataFolderNotEmptyError(dataDirectory, found);
-  const random = randomStream(options.seed ?? 20261201);
+  const random = seededUniform32(options.seed ?? 20261201);
   const today = new Date();
   const start = options.start ?? new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate() - 35));
   let now = new Date(start.getTime() - 86_400_000);
@@ -86,25 +68,28 @@ export async function seedDemo(dataDirectory: string, options: DemoOptions = {})
     sourceIds.set(demo.key, source.id);
     report.sources.push({ id: source.id, name: source.name });
   }
-  const plans = new Map<string, { id: string; sourceId: string; model: string }>();
+  const plans = new Map<string, { id: string; sourceId: string; sequential: SequentialPlan }>();
   for (const demo of demoPlans) {
     const sourceId = sourceIds.get(demo.sourceKey) as string;
     const plan = await planRepository.save({ name: demo.name, sourceId, part: demo.part, characteristic: demo.characteristic, spec: demo.spec });
-    plans.set(demo.key, { id: plan.id, sourceId, model: demo.spec.model });
+    plans.set(demo.key, { id: plan.id, sourceId, sequential: planOf<PlanSpec>(demo.spec) });
     report.plans.push({ id: plan.id, name: plan.name });
   }
 
   const service = createRunService({ dataDirectory, clock });
   try {
     for (const [index, lot] of demoLots.entries()) {
-      const plan = plans.get(lot.planKey) as { id: string; sourceId: string; model: string };
+      const plan = plans.get(lot.planKey) as { id: string; sourceId: string; sequential: SequentialPlan };
       now = new Date(start.getTime() + (lot.day * 24 + SHIFT_START_HOUR) * 3_600_000 + index * 97_000);
       const inspector = DEMO_INSPECTORS[index % DEMO_INSPECTORS.length];
       const view = await service.startRun({ planId: plan.id, sourceId: plan.sourceId, lot: lot.lot, lotSize: lot.lotSize, inspector });
       let state = view.state;
+      let drawn = plan.sequential.emptyEvidence();
       for (let item = 1; state.decision === 'continue' && item <= (lot.stopAfter ?? Number.MAX_SAFE_INTEGER); item += 1) {
         now = new Date(now.getTime() + SECONDS_PER_ITEM * 1000);
-        const result = plan.model === 'count' ? poisson(lot.trueQuality, random) : random() < lot.trueQuality ? 'fail' : 'pass';
+        // Drawn at the lot's true quality by the plan's model; the evidence so far is kept only for the draw (a lifetime failure comes after the test time so far).
+        const result = plan.sequential.drawObservation(drawn, lot.trueQuality, random);
+        drawn = plan.sequential.observe(drawn, result);
         const itemId = `${lot.lot}-${String(item).padStart(3, '0')}`;
         state = (await service.recordResult(view.run.id, { itemId, result, actor: inspector })).state;
       }

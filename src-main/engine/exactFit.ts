@@ -2,6 +2,7 @@ import { createExactEvaluator } from './exactEvaluator.js';
 import type { ExactPoint } from './exactEvaluator.js';
 import type { IntegerLines } from './integerLines.js';
 import type { CountStep } from './models/linearCountDefinition.js';
+import { bisectBoundary, expandUntil } from './numerics/rootFinding.js';
 
 export interface ExactFit {
   h1: number;
@@ -47,19 +48,14 @@ export function fitExactRisks(
 
   /** Smallest x in (0, ceiling] with feasible(x), assuming feasibility is monotone in x; null if none. */
   function smallestFeasible(start: number, feasible: (x: number) => boolean): number | null {
-    let high = start;
-    while (!feasible(high)) {
-      if (high >= ceiling) return null;
-      high = Math.min(ceiling, high * 1.5);
+    // Grows by 1.5 up to the ceiling, then tries the ceiling itself.
+    let high = expandUntil(feasible, start, ceiling, 1.5);
+    if (high === Number.POSITIVE_INFINITY) {
+      if (!feasible(ceiling)) return null;
+      high = ceiling;
     }
-    let low = 0;
     // Plans change only where a line crosses a lattice point; 1e-7 relative resolves those.
-    for (let i = 0; i < 40 && high - low > 1e-7 * high; i++) {
-      const middle = 0.5 * (low + high);
-      if (feasible(middle)) high = middle;
-      else low = middle;
-    }
-    return high;
+    return bisectBoundary(feasible, 0, high, { relativeTolerance: 1e-7, maxSteps: 40 });
   }
 
   let h1 = lines.h1;

@@ -8,17 +8,22 @@
  */
 export { PlanParameterError } from './errors.js';
 export { countNoun, countOf } from './countWords.js';
+export { formatNumber, formatFixed, formatCount, withUnit, percentText, formatPercent, formatQuality, formatQualityInterval } from './numberText.js';
 export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, GradedSpec, LinearCountSpec, FitMode, ModelName, SpecOf } from './spec.js';
 
 // The one contract and its registry.
-export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision } from './models/sequentialModel.js';
-export { modelNames, modelLabels, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
-export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, LimitRowOf, Observation, Evidence } from './models/registry.js';
+export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, EvidenceDecision, EvidencePoint, EntryText, PlanFlag, PlanFlagReader, ModelFlags } from './models/sequentialModel.js';
+export { frameHorizon, itemHorizon, MINIMUM_ITEM_HORIZON } from './models/sequentialModel.js';
+export { modelNames, modelLabels, modelFlags, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
+export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, PlanFrame, LimitRowOf, Observation, Evidence } from './models/registry.js';
+export { formatTable, NUMBER_TEXT } from './textFormat.js';
+export type { RecordLines, RecordRow, RecordQuality, RecordPlanLines, RecordEvidenceLines, RecordEstimate, RecordChart, RecordPathPoint, ChartPoint } from './models/recordLines.js';
+export { linearCountPlanRows, type LinearCountPlanFigures } from './models/linearCountRecordLines.js';
 export type { LookAhead } from './lookAhead.js';
 
 // Pass/fail and count: the integer-line machinery they share.
 export type { KlDivergences, LinearCountDefinition, LinearStatistic } from './models/linearCountDefinition.js';
-export type { LinearCountEvidence, LinearCountEvidenceState } from './models/linearCountModel.js';
+export type { LinearCountEvidence, LinearCountEvidenceState, LinearCountFrame } from './models/linearCountModel.js';
 export { passFailDefinition } from './models/passfail/passFailDefinition.js';
 export { isLinearCountSpec } from './models/linearCountDefinitions.js';
 export { countDefinition } from './models/count/countDefinition.js';
@@ -52,7 +57,7 @@ export { measurementPlan, decideMeasurement, measurementBoundaries, measurementK
 export type { MeasurementPlan, MeasurementBoundaries, MeasurementDecision } from './models/measurement/measurementPlan.js';
 export { designMeasurementPlan, measurementLiveState, measurementTruncationRule } from './models/measurement/measurementDesign.js';
 export type { MeasurementDesign, MeasurementCurvePoint, MeasurementLiveState } from './models/measurement/measurementDesign.js';
-export type { MeasurementObservation, MeasurementEvidence, MeasurementEvidenceState, MeasurementLimitRow } from './models/measurement/measurementModel.js';
+export type { MeasurementObservation, MeasurementEvidence, MeasurementEvidenceState, MeasurementLimitRow, MeasurementFrame } from './models/measurement/measurementModel.js';
 
 // Lifetime.
 export { lifetimePlan, decideLifetime, lifetimeBoundaries, lifetimeLimitRows, acceptTime, rejectTime } from './models/lifetime/lifetimePlan.js';
@@ -61,7 +66,7 @@ export { designLifetimePlan, lifetimeLiveState, lifetimeTruncationRule } from '.
 export type { LifetimeDesign, LifetimeCurvePoint, LifetimeLiveState } from './models/lifetime/lifetimeDesign.js';
 export { fixedDurationPlan, fixedDurationRisks } from './models/lifetime/fixedDurationPlan.js';
 export type { FixedDurationPlan } from './models/lifetime/fixedDurationPlan.js';
-export type { LifetimeObservation, LifetimeEvidence, LifetimeEvidenceState, LifetimeLimitRow } from './models/lifetime/lifetimeModel.js';
+export type { LifetimeObservation, LifetimeEvidence, LifetimeEvidenceState, LifetimeLimitRow, LifetimeFrame } from './models/lifetime/lifetimeModel.js';
 
 // Graded.
 export { gradedPlan, decideGraded, gradedBoundaries, gradedKl, gradedQuality, gradedLimitRows } from './models/graded/gradedPlan.js';
@@ -69,7 +74,12 @@ export type { GradedPlan, GradedBoundaries, GradedDecision } from './models/grad
 export { designGradedPlan, gradedLiveState, GRADED_EXACT_LIMIT } from './models/graded/gradedDesign.js';
 export type { GradedDesign, GradedCurvePoint, GradedLiveState, GradedDesignOptions } from './models/graded/gradedDesign.js';
 export { gradeIndex } from './models/graded/gradedModel.js';
-export type { GradedObservation, GradedEvidence, GradedEvidenceState, GradedLimitRow } from './models/graded/gradedModel.js';
+export type { GradedObservation, GradedEvidence, GradedEvidenceState, GradedLimitRow, GradedFrame } from './models/graded/gradedModel.js';
+
+// Distributions the models and their screens share.
+export { binomialCdf } from './distributions/binomial.js';
+export { poissonCdf } from './distributions/poisson.js';
+export { normalCdf, normalQuantile } from './distributions/normal.js';
 
 // Bounds every plan is held to before any work is done.
 export { checkPlanWork, PLAN_LIMITS } from './planWork.js';

@@ -15,6 +15,8 @@ import { checkInteger } from './validate.js';
 import { lookAhead, type LookAhead } from './lookAhead.js';
 
 export interface LinearCountLiveState extends LookAhead {
+  /** Absent: the pass/fail and count look-ahead has the shape it has always had; the other models name themselves. */
+  readonly model?: undefined;
   n: number;
   total: number;
   decision: Decision;

@@ -3,7 +3,7 @@
  * nonconforming found, the decisions over time, and the pooled fraction with its caveat.
  * Pure: takes the runs as plain data, reads nothing.
  */
-import type { LinearCountSpec } from '../engine/index.js';
+import { modelLabels, type ModelName } from '../engine/index.js';
 import type { RunRow } from '../inspection/runCatalogue.js';
 
 /** One run as the summary needs it: the catalogue's row (inspection/runCatalogue.ts) carries these fields. */
@@ -11,14 +11,14 @@ export type SummaryRun = Pick<RunRow, 'runId' | 'outcome' | 'startedAt' | 'model
 
 /** The pooled figure of one data model: sums over the decided runs of that model. */
 export interface PooledFigure {
-  readonly model: LinearCountSpec['model'];
+  readonly model: ModelName;
   readonly runs: number;
   readonly itemsInspected: number;
   readonly nonconformingFound: number;
   /** nonconformingFound / itemsInspected; null when no item was inspected. */
   readonly pooled: number | null;
-  /** What the figure is a rate of, for the screen. */
-  readonly unit: 'fraction nonconforming' | 'nonconformities per item';
+  /** What the figure is a rate of, for the screen (the model's `labels.pooledRate`). */
+  readonly unit: string;
 }
 
 /** The decisions over time as running counts, one point per decided run, oldest first. */
@@ -54,8 +54,6 @@ export const POOLING_CAVEAT =
   'and the true quality. Read the pooled figure as a rough indication only; the bias-adjusted estimate and ' +
   'exact interval of each decided run are in its decision record.';
 
-const UNITS = { passfail: 'fraction nonconforming', count: 'nonconformities per item' } as const;
-
 function isDecided(run: SummaryRun): boolean {
   return run.outcome === 'accepted' || run.outcome === 'rejected';
 }
@@ -73,8 +71,10 @@ export function summariseSource(runs: readonly SummaryRun[]): SourceSummary {
   const sum = (list: readonly SummaryRun[], key: 'itemsInspected' | 'nonconformingFound') =>
     list.reduce((total, run) => total + run[key], 0);
 
-  // Only fractions and rates per item pool; measurements, test times and grades have no such figure.
-  const models = [...new Set(decided.map((run) => run.model))].filter((model): model is LinearCountSpec['model'] => model === 'passfail' || model === 'count').sort();
+  // Only models whose total is a count per item pool (labels.pooledRate); a sum of measurements, test times or demerits has no such figure.
+  const models = [...new Set(decided.map((run) => run.model))]
+    .filter((model): model is ModelName => model !== null && modelLabels(model).pooledRate !== null)
+    .sort();
   const pooled = models.map((model): PooledFigure => {
     const ofModel = decided.filter((run) => run.model === model);
     const itemsInspected = sum(ofModel, 'itemsInspected');
@@ -85,7 +85,7 @@ export function summariseSource(runs: readonly SummaryRun[]): SourceSummary {
       itemsInspected,
       nonconformingFound,
       pooled: itemsInspected === 0 ? null : nonconformingFound / itemsInspected,
-      unit: UNITS[model],
+      unit: modelLabels(model).pooledRate as string,
     };
   });
 

@@ -15,7 +15,7 @@
 import type { Stats } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
 import path from 'node:path';
-import type { PlanSpec } from '../engine/index.js';
+import { modelLabels, type PlanSpec } from '../engine/index.js';
 import { analyseJournal, checkAnchor, checkId, folderNames, layout, readAnchorBytes, withAnchor, type AnchorCheck, type JournalEntry, type JournalProblem } from '../store/index.js';
 import { localTimestamp } from './localTime.js';
 import { RunJournalContentError, RunReplay } from './runReplay.js';
@@ -154,6 +154,30 @@ export function matchesRunFilter(row: RunRow, filter: RunFilter): boolean {
   );
 }
 
+/** The Records place's list: the rows that pass the filter, and what the filter can offer. */
+export interface RunHistory {
+  /** Rows that pass the filter, in the order given (the catalogue lists newest start first). */
+  readonly rows: RunRow[];
+  /** Every source that has runs, by name. */
+  readonly sources: Array<{ readonly id: string; readonly name: string }>;
+  /** Runs before filtering. */
+  readonly totalRuns: number;
+  /** Runs whose journal is damaged, before filtering. */
+  readonly damaged: number;
+}
+
+/** The run history of the Records place from every listed row and its filter. */
+export function runHistory(every: readonly RunRow[], filter: RunFilter): RunHistory {
+  const named = new Map<string, string>();
+  for (const row of every) if (row.sourceId !== null && row.sourceName !== null) named.set(row.sourceId, row.sourceName);
+  return {
+    rows: every.filter((row) => matchesRunFilter(row, filter)),
+    sources: [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name)),
+    totalRuns: every.length,
+    damaged: every.filter((row) => row.outcome === 'damaged').length,
+  };
+}
+
 /** Newest start first; rows without a readable start last; then by run id. */
 export function compareRows(a: RunRow, b: RunRow): number {
   const time = (row: RunRow) => (row.startedAt === null ? -Infinity : Date.parse(row.startedAt));
@@ -253,8 +277,8 @@ function rowOf(runId: string, replay: RunReplay | null, entries: readonly Journa
     endedAt: closeEntry === undefined ? null : localTimestamp(closeEntry.time, closeEntry.offset, { milliseconds: true }),
     rule: standing ? (replay.lastClose?.rule ?? null) : null,
     itemsInspected: replay.n,
-    // A sum of measurements, failures or demerits is not a count of nonconforming items.
-    nonconformingFound: model === 'passfail' || model === 'count' ? replay.total : 0,
+    // Only a model whose total counts nonconforming items or nonconformities (labels.pooledRate) has one; a sum of measurements, failures or demerits is not.
+    nonconformingFound: modelLabels(model).pooledRate === null ? 0 : replay.total,
     damage,
   };
 }

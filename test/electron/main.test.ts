@@ -27,6 +27,8 @@ vi.mock('electron', () => {
       recorded.windowOptions.push(options);
     }
     once() {}
+    on() {}
+    maximize() {}
     loadURL(url: string) {
       recorded.loadedUrls.push(url);
       return Promise.resolve();
@@ -35,6 +37,10 @@ vi.mock('electron', () => {
   const electron = {
     app: {
       requestSingleInstanceLock: () => true,
+      getPath: () => '/tmp/tallyline-electron-shell-test-profile',
+      getName: () => 'Tallyline',
+      getVersion: () => '0.0.0',
+      setAboutPanelOptions: () => undefined,
       on: (event: string, listener: (...args: any[]) => void) => recorded.appListeners.set(event, listener),
       whenReady: () => Promise.resolve(),
       quit: () => (recorded.quitCalls += 1),
@@ -44,9 +50,13 @@ vi.mock('electron', () => {
       defaultSession: {
         setPermissionRequestHandler: (handler: any) => (recorded.permissionRequestHandler = handler),
         setPermissionCheckHandler: (handler: any) => (recorded.permissionCheckHandler = handler),
+        on: () => undefined,
       },
     },
     BrowserWindow,
+    dialog: { showMessageBox: async () => ({ response: 0 }) },
+    nativeTheme: { themeSource: 'system', shouldUseDarkColors: false, on: () => undefined },
+    screen: { getAllDisplays: () => [{ workArea: { x: 0, y: 0, width: 1920, height: 1040 } }] },
     ipcMain: { handle: (channel: string) => recorded.invokeChannels.push(channel), on: () => undefined },
     Menu: { setApplicationMenu: () => undefined, buildFromTemplate: (template: unknown) => template },
     protocol: { registerSchemesAsPrivileged: () => undefined, handle: (scheme: string) => recorded.handledProtocols.push(scheme) },
@@ -58,7 +68,7 @@ vi.mock('electron', () => {
 beforeAll(async () => {
   process.env.TALLYLINE_DATA = '/tmp/tallyline-electron-shell-test';
   await import('../../src-main/electron/main.js');
-  await new Promise((resolve) => setTimeout(resolve, 0));
+  await vi.waitFor(() => expect(recorded.windowOptions).toHaveLength(1));
 });
 
 describe('the Electron shell', () => {

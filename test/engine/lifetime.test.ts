@@ -11,6 +11,7 @@ import {
 } from '../../src-main/engine/index.js';
 import type { LifetimeSpec } from '../../src-main/engine/index.js';
 import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
+import { fixedDurationPlans, lifetimeExactAndWald, lifetimeLines } from '../reference/referenceValues.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { poisson: { cdf(k: number, mean: number): number } };
@@ -53,13 +54,8 @@ function simulate(s: LifetimeSpec, theta: number, runs: number, seed: number) {
 }
 
 describe('lifetime model (exponential MTBF)', () => {
-  // Epstein and Sobel 1955 lines (computed independently); times in units of theta1.
-  it.each([
-    [1.5, 0.1, 6.5917, 1.2164, 6],
-    [2, 0.1, 4.3944, 1.3863, 4],
-    [3, 0.1, 3.2958, 1.6479, 3],
-    [2, 0.2, 2.7726, 1.3863, 3],
-  ])('reproduces the Epstein and Sobel 1955 lines (computed independently) lines for d = %s, alpha = beta = %s', (d, risk, acceptAtZero, slope, firstReject) => {
+  // Epstein and Sobel 1955 lines, computed with lifetimeLinesOf (test/reference); times in units of theta1.
+  it.each(lifetimeLines)('reproduces the Epstein and Sobel 1955 lines (computed independently) lines for d = %s, alpha = beta = %s', (d, risk, acceptAtZero, slope, firstReject) => {
     const b = lifetimeBoundaries(lifetimePlan(spec(d, risk)));
     expect(b.acceptTimeAtZero).toBeCloseTo(acceptAtZero, 4);
     expect(b.timePerFailure).toBeCloseTo(slope, 4);
@@ -92,13 +88,9 @@ describe('lifetime model (exponential MTBF)', () => {
     expect(Math.abs(lifetimeBoundaries(lifetimePlan(spec(3, 0.1))).acceptTimeAtZero - 3.3)).toBeLessThan(0.05);
   });
 
-  // exact recursion over failures (computed independently by a time grid) (grid + Richardson, stated tolerance +-2e-4 in P(accept), +-0.02 theta1 in E[T]).
-  it.each([
-    [2, 0.1, 0.9207, 11.94, 11.457, 0.1023, 10.18, 9.101],
-    [1.5, 0.1, 0.9128, 28.6, 27.891, 0.1014, 26.02, 24.369],
-    [3, 0.1, 0.9313, 6.23, 5.85, 0.1035, 4.875, 4.069],
-    [2, 0.2, 0.8439, 5.99, 5.421, 0.211, 5.16, 4.306],
-  ])('reproduces exact recursion over failures (computed independently by a time grid) exact and Wald OC and E[T] for d = %s, alpha = beta = %s', (d, risk, oc0, time0, waldTime0, oc1, time1, waldTime1) => {
+  // Exact columns: a recursion over failures on a time grid with Richardson extrapolation, computed independently
+  // (stated tolerance +-2e-4 in P(accept), +-0.02 theta1 in E[T]); Wald columns computed with lifetimeWaldTime (test/reference).
+  it.each(lifetimeExactAndWald)('reproduces exact recursion over failures (computed independently by a time grid) exact and Wald OC and E[T] for d = %s, alpha = beta = %s', (d, risk, oc0, time0, waldTime0, oc1, time1, waldTime1) => {
     const design = designLifetimePlan(spec(d, risk), { curvePoints: 2 });
     expect(Math.abs(1 - design.exact.alpha - oc0)).toBeLessThanOrEqual(2e-4);
     expect(Math.abs(design.exact.expectedTimeH0 - time0)).toBeLessThanOrEqual(0.02);
@@ -127,14 +119,8 @@ describe('lifetime model (exponential MTBF)', () => {
   });
 
   it('reproduces the recomputed true risks of the MIL-HDBK-781A fixed-duration plans (MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF): table (from memory), risks)', () => {
-    // plan, d, T (theta1), accept <= c, alpha' %, beta' %.
-    const plans: Array<[string, number, number, number, number, number]> = [
-      ['IX-D', 1.5, 45.0, 36, 11.96, 9.94],
-      ['XII-D', 2.0, 18.8, 13, 9.58, 10.62],
-      ['XV-D', 3.0, 9.3, 5, 9.43, 9.86],
-      ['XXI-D', 3.0, 1.1, 0, 30.7, 33.29],
-    ];
-    for (const [, d, time, c, alpha, beta] of plans) {
+    // plan, d, T (theta1), accept <= c, alpha' %, beta' %: risks computed with fixedDurationRisksOf (jStat.poisson.cdf, test/reference).
+    for (const [, d, time, c, alpha, beta] of fixedDurationPlans) {
       const risks = fixedDurationRisks(d, 1, time, c);
       expect(100 * risks.alpha).toBeCloseTo(alpha, 1);
       expect(100 * risks.beta).toBeCloseTo(beta, 1);

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PlanParameterError, designLinearCountPlan } from '../../src-main/engine/index.js';
+import { nistExactUntruncated } from '../reference/referenceValues.js';
 import { nist } from './planFixtures.js';
 
 describe('designLinearCountPlan', () => {
@@ -23,8 +24,9 @@ describe('designLinearCountPlan', () => {
     expect(design.limits).toHaveLength(156);
     expect(design.limits[0]).toEqual({ n: 1, accept: null, reject: 2 });
     expect(design.limits[23]).toEqual({ n: 24, accept: 0, reject: 3 }); // NIST §6.2.6 (first-hand)
-    // Exact ASN at H0 30.213 (exact recursion over the integer lines (computed independently, checked by simulation)) against 52: saving 1 - 30.213/52.
-    expect(design.saving?.h0).toBeCloseTo(1 - 30.213 / 52, 3);
+    // Exact ASN at H0 30.213 (computed with exactOcAsn, test/reference) against 52: saving 1 - 30.213/52.
+    const [, atH0] = nistExactUntruncated;
+    expect(design.saving?.h0).toBeCloseTo(1 - atH0[2] / 52, 3);
   });
 
   it('puts the truncation rule in the last limits row and in words', () => {
@@ -59,7 +61,7 @@ describe('designLinearCountPlan', () => {
     expect(design.curve.map((point) => point.theta)).toEqual(Array.from({ length: 11 }, (_, i) => (0.2 * i) / 10));
     const atP1 = design.curve[5];
     expect(atP1.ocWald).toBeCloseTo(0.1, 10); // Wald's OC is beta at p1 by construction
-    expect(atP1.ocExact).toBeCloseTo(0.09958, 5); // exact recursion over the integer lines (computed independently, checked by simulation)
+    expect(atP1.ocExact).toBeCloseTo(nistExactUntruncated[6][1], 5); // 0.09958, computed with exactOcAsn (test/reference)
   });
 
   it('rejects a bad number of curve points with a specific error', () => {

@@ -10,9 +10,10 @@ import {
   SIEGMUND_RHO,
 } from '../../src-main/engine/index.js';
 import type { MeasurementSpec } from '../../src-main/engine/index.js';
-import { normalCdf, normalQuantile } from '../../src-main/engine/numerics/normalDistribution.js';
+import { normalCdf, normalQuantile } from '../../src-main/engine/distributions/normal.js';
 import { seededRandom } from '../../src-main/engine/numerics/seededRandom.js';
-import { waldOperatingPoint } from '../../src-main/engine/numerics/waldExponent.js';
+import { normalFixedSample, normalWaldToFixedRatio } from '../reference/referenceValues.js';
+import { waldOperatingPoint } from '../../src-main/engine/waldCurve.js';
 
 // jstat ships no types; the one call these tests use.
 const jstat = jstatModule as unknown as { normal: { cdf(x: number, mean: number, sd: number): number } };
@@ -87,12 +88,13 @@ describe('measurement model (normal mean, sigma known)', () => {
   });
 
   it('gives the fixed-sample n of normal SPRT by the Fredholm integral equation (computed independently) and Wald 1947 ASN against the fixed-sample n (computed independently): ((z_(1-alpha) + z_(1-beta))/delta)^2', () => {
-    // normal SPRT by the Fredholm integral equation (computed independently) "fixed n" column.
-    expect(designMeasurementPlan(spec(0.05, 0.1, 1), { curvePoints: 2 }).single.exactN).toBeCloseTo(8.564, 3);
-    expect(designMeasurementPlan(spec(0.01, 0.01, 0.5), { curvePoints: 2 }).single.exactN).toBeCloseTo(86.59, 2);
-    // Wald 1947 ASN against the fixed-sample n (computed independently): Wald ratio E_0(N)/n_fixed = 0.4897 for alpha = beta = 0.05.
+    // Computed with normalFixedSampleSize (jStat.normal.inv, test/reference).
+    for (const [alpha, beta, delta, n] of normalFixedSample) {
+      expect(Math.abs(designMeasurementPlan(spec(alpha, beta, delta), { curvePoints: 2 }).single.exactN / n - 1)).toBeLessThan(5e-5); // half a unit of the written decimals
+    }
+    // Wald 1947 ASN against the fixed-sample n, computed with normalWaldAsnH0 (test/reference): 0.4897 for alpha = beta = 0.05.
     const design = designMeasurementPlan(spec(0.05, 0.05, 1), { curvePoints: 2 });
-    expect(design.wald.asnH0 / design.single.exactN).toBeCloseTo(0.4897, 4);
+    expect(design.wald.asnH0 / design.single.exactN).toBeCloseTo(normalWaldToFixedRatio, 4);
   });
 
   it('uses Siegmund rho = -zeta(1/2)/sqrt(2 pi) = 0.58260 (Siegmund 1985 ch. 3 (from memory; rho computed from zeta(1/2)), computed)', () => {

@@ -2,9 +2,9 @@ import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { renderDecisionRecord, writeDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
-import { DecisionRecordInputError } from '../../src-main/record/recordInput.js';
-import { INTERIM_NOTICE } from '../../src-main/record/titleBlock.js';
+import { renderDecisionRecord, writeDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
+import { DecisionRecordInputError } from '../../src-main/record/input/decisionRecordInput.js';
+import { INTERIM_NOTICE } from '../../src-main/record/pdf/titleBlock.js';
 import { decidedDemoRun, DEMO_FINGERPRINT, longDemoRun, makeDemoRun } from './demoRun.js';
 import { flatten, isStruckThrough, pageGeometry, pdfText, renderPageToPng } from './pdfInspection.js';
 
@@ -222,6 +222,17 @@ describe('writeDecisionRecord', () => {
     await expect(writeDecisionRecord(input, path)).rejects.toThrow(DecisionRecordInputError);
     await expect(writeDecisionRecord(input, path)).rejects.toThrow(/fingerprint is "ABC123"; allowed: 64 lower-case hex digits/);
     expect(existsSync(path)).toBe(false);
+  });
+
+  it('refuses an entry whose time has no offset, naming the entry and the field', async () => {
+    const input = decidedDemoRun();
+    input.entries[3] = { ...input.entries[3], recordedAt: '2025-03-14T08:02:11' };
+    await expect(renderDecisionRecord(input)).rejects.toThrow(/entries\[3\]\.recordedAt is "2025-03-14T08:02:11"; allowed: an ISO 8601 date-time with offset/);
+  });
+
+  it('refuses a record of inspected items without a quality estimate', async () => {
+    const input = { ...decidedDemoRun(), qualityEstimate: null };
+    await expect(renderDecisionRecord(input)).rejects.toThrow(/qualityEstimate is null; allowed: an estimate once items are inspected \(135 are\)/);
   });
 
   it('refuses an interim flag that contradicts the decision', async () => {

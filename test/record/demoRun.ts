@@ -3,13 +3,10 @@
  * below do not exist; the numbers come from a small Wald SPRT walk written here, independent of
  * the engine, so the record can be tested before the engine and journal glue are wired in.
  */
-import type {
-  BoundaryStep,
-  DecisionRecordInput,
-  RecordEntry,
-  RecordState,
-} from '../../src-main/record/recordInput.js';
+import type { DecisionRecordInput, RecordEntry, RecordState } from '../../src-main/record/input/decisionRecordInput.js';
 import { naiveQualityEstimate } from '../../src-main/engine/estimation/naiveQualityEstimate.js';
+import { linearCountPlanRows, planOf, type LimitRow } from '../../src-main/engine/index.js';
+import { itemHorizon } from '../../src-main/inspection/index.js';
 
 export const DEMO_FINGERPRINT = '3f6c0e9a1b7d24c58e0f9a3b6d1c7e2f5a8b0c3d6e9f1a4b7c0d3e6f9a2b5c8d';
 
@@ -31,15 +28,15 @@ function waldBoundaries() {
 
 const WALD = waldBoundaries();
 
-export function demoBoundarySteps(maxItems: number): BoundaryStep[] {
-  const steps: BoundaryStep[] = [];
+/** The pass/fail model's record lines: the demo's rows, results and chart in the words the app uses. */
+const LINES = planOf({ model: 'passfail', p0: P0, p1: P1, alpha: ALPHA, beta: BETA }).recordLines();
+
+/** Acceptance and rejection numbers after n = 1..maxItems items. */
+export function demoBoundarySteps(maxItems: number): LimitRow[] {
+  const steps: LimitRow[] = [];
   for (let n = 1; n <= maxItems; n++) {
     const acceptance = Math.floor(-WALD.h1 + WALD.slope * n);
-    steps.push({
-      itemsInspected: n,
-      acceptanceNumber: acceptance >= 0 ? acceptance : null,
-      rejectionNumber: Math.ceil(WALD.h2 + WALD.slope * n),
-    });
+    steps.push({ n, accept: acceptance >= 0 ? acceptance : null, reject: Math.ceil(WALD.h2 + WALD.slope * n) });
   }
   return steps;
 }
@@ -87,6 +84,7 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
         recordedAt: nextTime(),
         itemId,
         nonconformities: bad ? 0 : 1,
+        resultText: LINES.resultText(bad ? 'pass' : 'fail'),
         category: bad ? null : 'thread damage',
         note: 'entered against the wrong item',
         actor,
@@ -101,20 +99,21 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
       recordedAt: nextTime(),
       itemId,
       nonconformities: bad ? 1 : 0,
+      resultText: LINES.resultText(bad ? 'fail' : 'pass'),
       category: bad ? (n % 3 === 0 ? 'flange burr' : 'thread damage') : null,
       note: bad ? `NO-GO gauge entered ${n % 2 ? '2 turns' : '1 turn'}, part "quarantined", tray 4, bin B` : n % 50 === 0 ? 'gauge re-zeroed per work instruction WI-Q-017, no finding' : null,
       actor,
       voided: null,
     });
     const step = steps[n - 1];
-    if (step.rejectionNumber !== null && d >= step.rejectionNumber) {
+    if (d >= step.reject) {
       state = 'reject';
-      rule = `${d} nonconforming >= rejection number ${step.rejectionNumber} at n = ${n}`;
+      rule = `${d} nonconforming >= rejection number ${step.reject} at n = ${n}`;
       break;
     }
-    if (step.acceptanceNumber !== null && d <= step.acceptanceNumber) {
+    if (step.accept !== null && d <= step.accept) {
       state = 'accept';
-      rule = `${d} nonconforming <= acceptance number ${step.acceptanceNumber} at n = ${n}`;
+      rule = `${d} nonconforming <= acceptance number ${step.accept} at n = ${n}`;
       break;
     }
     if (options.truncation && n === options.truncation.maxItems) {
@@ -130,6 +129,13 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
   }
   const llr = d * WALD.g1 - (n - d) * WALD.g2;
   const decided = state !== 'continue';
+  // The path: the start, then the cumulative count after each counted entry.
+  const path = [{ n: 0, total: 0, llr: 0 }];
+  for (const entry of entries.filter((candidate) => candidate.voided === null)) {
+    const last = path[path.length - 1];
+    path.push({ n: last.n + 1, total: last.total + entry.nonconformities, llr: 0 });
+  }
+  const horizon = itemHorizon(n, 1, options.truncation?.maxItems ?? null);
   return {
     header: {
       organisationName: 'Northgate Assembly Ltd (invented)',
@@ -154,7 +160,7 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
     plan: {
       planId: 'PL-M6-NUT-THREAD',
       planVersion: '3',
-      model: 'passfail',
+      modelLine: LINES.modelLine,
       acceptableQuality: { symbol: 'p0', value: P0, unit: 'fraction nonconforming' },
       rejectableQuality: { symbol: 'p1', value: P1, unit: 'fraction nonconforming' },
       producerRiskNominal: ALPHA,
@@ -162,16 +168,19 @@ export function makeDemoRun(options: DemoRunOptions): DecisionRecordInput {
       // Invented "exact" values for the fixture; the engine will supply real ones.
       producerRiskExact: 0.0412,
       consumerRiskExact: 0.0968,
-      boundaries: { h1: WALD.h1, h2: WALD.h2, slope: WALD.slope, lnA: WALD.lnA, lnB: WALD.lnB },
-      truncation: options.truncation
-        ? { maxItems: options.truncation.maxItems, rule: `accept if cumulative nonconforming <= ${options.truncation.acceptanceNumber}, otherwise reject` }
-        : null,
-      averageSampleNumberAtAcceptable: 75.3,
-      averageSampleNumberAtRejectable: 52.9,
+      rows: linearCountPlanRows({
+        boundaries: WALD,
+        truncation: options.truncation
+          ? { maxItems: options.truncation.maxItems, rule: `accept if cumulative nonconforming <= ${options.truncation.acceptanceNumber}, otherwise reject` }
+          : null,
+        asnH0: 75.3,
+        asnH1: 52.9,
+      }),
     },
     entries,
-    boundarySteps: steps,
+    chart: LINES.chart(steps.slice(0, horizon), path),
     decision: { state, rule, itemsInspected: n, nonconformingFound: d, finalLogLikelihoodRatio: llr },
+    evidence: LINES.evidence({ decision: decided ? (state.startsWith('accept') ? 'accept' : 'reject') : 'continue', rule: decided ? rule : null, standing: rule, llr, n, total: d }),
     qualityEstimate: naiveQualityEstimate({ model: 'passfail', itemsInspected: n, nonconformities: d, confidenceLevel: 0.95 }),
     outcome: !decided ? 'open' : state.startsWith('accept') ? 'accepted' : 'rejected',
     history: [],

@@ -1,11 +1,11 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
 import {
   fingerprintFromPdf,
   fingerprintFromPdfMetadata,
   fingerprintFromText,
   recordFingerprintMismatches,
-} from '../../src-main/record/fingerprintFromPdf.js';
+} from '../../src-main/record/pdf/fingerprintFromPdf.js';
 import { decidedDemoRun, DEMO_FINGERPRINT } from './demoRun.js';
 
 const OTHER = 'a'.repeat(64);

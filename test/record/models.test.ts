@@ -1,12 +1,12 @@
 /**
- * Decision records of measurement, lifetime and graded runs made through the real run service:
+ * Decision records of count, measurement, lifetime and graded runs made through the real run service:
  * the text says each model's hypotheses with units, its boundaries in natural units, the entries'
- * values, and a naive estimate labelled as such. Page images go to test/artifacts/record/.
+ * values or counts, and the estimate with its method. Page images go to test/artifacts/record/.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { decisionRecordForRun } from '../../src-main/record/fromRun.js';
-import type { DecisionRecordInput } from '../../src-main/record/recordInput.js';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
+import { decisionRecordForRun } from '../../src-main/record/input/decisionRecordFromRun.js';
+import type { DecisionRecordInput } from '../../src-main/record/input/decisionRecordInput.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
 import type { ItemResult } from '../../src-main/inspection/index.js';
 import { gradedSpec, lifetimeSpec, measurementSpec } from '../inspection/modelSpecs.js';
 import { recordWorkspace, sourceWithPlan, type RecordWorkspace } from './fromRunFixtures.js';
@@ -29,14 +29,17 @@ async function recordOf(space: RecordWorkspace, spec: Parameters<typeof sourceWi
   return { input, pdf, text: flatten((await pdfText(pdf)).join(' ')) };
 }
 
-describe('decision records of the models with their own design path', () => {
+describe('decision records of every model but pass/fail, in their own words and units', () => {
   let space: RecordWorkspace;
+  let count: Made;
   let measurement: Made;
   let lifetime: Made;
   let graded: Made;
 
   beforeAll(async () => {
     space = await recordWorkspace();
+    // Invented counts per unit: 3 nonconformities at the seventh unit reach the rejection number ceil(h2 + 7 s) = 3.
+    count = await recordOf(space, { model: 'count', lambda0: 0.05, lambda1: 0.3, alpha: 0.05, beta: 0.1 }, 'Casting porosity', [0, 0, 2, 0, 0, 0, 1, 0]);
     // Invented diameters near 10.0 mm: the fourth accepts (LLR 3.125 x (39.96 - 4 x 10.25) = -3.25 <= ln(0.1/0.95) = -2.25).
     measurement = await recordOf(space, measurementSpec, 'Shaft diameter', [10.02, 9.95, 10.11, 9.88, 10.04].map((value) => ({ value })));
     // Invented life test: two failures, then test time past the acceptance line (accepts at the acceptance time).
@@ -45,6 +48,29 @@ describe('decision records of the models with their own design path', () => {
     graded = await recordOf(space, gradedSpec, 'Casting finish', ['conforming', 'minor', 'major', 'conforming', 'major', 'major'].map((grade) => ({ grade })));
   }, 120_000);
   afterAll(() => space.cleanup());
+
+  it('a count record names nonconformities, prints each unit\'s count and the Poisson lines', () => {
+    const { text, input } = count;
+    expect(input.decision.state).toBe('reject');
+    expect(text).toContain('Model count (nonconformities per item; Poisson SPRT)');
+    expect(text).toContain('H0 (acceptable quality): lambda0 = 0.05 nonconformities per item');
+    // Wald (1947), Poisson case: h2 = ln((1 - beta)/alpha)/ln(lambda1/lambda0) = ln 18/ln 6 = 1.6131 and
+    // s = (lambda1 - lambda0)/ln(lambda1/lambda0) = 0.25/ln 6 = 0.139528 (hand computation).
+    expect(text).toContain('h2 = 1.6131, slope s = 0.139528');
+    expect(text).toContain('Nonconformities found 3');
+    expect(text).toContain('7 items inspected, 3 nonconformities found');
+    expect(text).toContain('Cumulative nonconformities, d (count)');
+    expect(input.entries.map((entry) => entry.resultText)).toEqual([
+      '0 nonconformities',
+      '0 nonconformities',
+      '2 nonconformities',
+      '0 nonconformities',
+      '0 nonconformities',
+      '0 nonconformities',
+      '1 nonconformity',
+    ]);
+    expect(renderPageToPng(count.pdf, 'models-count', 1, 80)).toMatch(/\.png$/);
+  });
 
   it('a measurement record states the hypotheses in mm, the lines on the sum, the values and the naive mean', () => {
     const { text, input } = measurement;
@@ -83,6 +109,9 @@ describe('decision records of the models with their own design path', () => {
     // 2T/chi2(0.95; 6) and 2T/chi2(0.05; 4): chi-square table values 12.592 and 0.7107 (from memory [M]).
     expect(estimate?.lower).toBeCloseTo((2 * time) / 12.592, 0);
     expect((estimate?.upper ?? 0) / ((2 * time) / 0.7107)).toBeCloseTo(1, 3);
+    // Both lines are drawn: the rejection line from where it meets T = 0, r = 2197.22/693.15 = 3.17 (hand computation).
+    expect(input.chart.reject[0]?.[1]).toBeCloseTo(2197.2245 / 693.1472, 4);
+    expect(input.chart.reject.length).toBeGreaterThanOrEqual(2);
     expect(renderPageToPng(lifetime.pdf, 'models-lifetime', 1, 80)).toMatch(/\.png$/);
     expect(renderPageToPng(lifetime.pdf, 'models-lifetime', 2, 80)).toMatch(/\.png$/);
   });
@@ -98,6 +127,8 @@ describe('decision records of the models with their own design path', () => {
     expect(text).toContain('class shares: conforming 0.4, minor 0.2, major 0.4');
     expect(text).toContain('Naive share of items not conforming with the exact Clopper-Pearson 90 % interval');
     expect(input.entries.map((entry) => entry.resultText)).toEqual(['conforming', 'minor', 'major', 'conforming', 'major']);
+    // The chart reaches where acceptance first becomes possible: D <= 0.1948 n - 2.4050 from n = 13.
+    expect(input.chart.accept.find((point) => point !== null)?.[0]).toBe(13);
     expect(renderPageToPng(graded.pdf, 'models-graded', 1, 80)).toMatch(/\.png$/);
   });
 });

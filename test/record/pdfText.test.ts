@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { fingerprintFromPdf } from '../../src-main/record/fingerprintFromPdf.js';
-import { readPdfObjects } from '../../src-main/record/pdfObjects.js';
-import { pdfText } from '../../src-main/record/pdfText.js';
-import { renderDecisionRecord } from '../../src-main/record/renderDecisionRecord.js';
+import { fingerprintFromPdf } from '../../src-main/record/pdf/fingerprintFromPdf.js';
+import { readPdfObjects } from '../../src-main/record/pdf/pdfObjects.js';
+import { pdfText } from '../../src-main/record/pdf/pdfText.js';
+import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
 import { decidedDemoRun, DEMO_FINGERPRINT } from './demoRun.js';
 import { pdfText as pdfjsText } from './pdfInspection.js';
 

@@ -58,3 +58,51 @@ describe('tamper detection in the run journal', () => {
     await expectTamperedAt(journalPath, 0);
   });
 });
+
+describe('tamper detection on the fast reload path', () => {
+  it('catches a one-character edit of any entry, in its time, offset, actor or link, by that entry', async () => {
+    const folder = await tempFolder();
+    const journalPath = await writeSampleJournal(folder, 6);
+    const original = await readFile(journalPath, 'utf8');
+    const lines = original.split('\n').slice(0, -1);
+    for (let seq = 1; seq < lines.length - 1; seq += 1) {
+      for (const [pattern, replacement] of [
+        [/"time":"(\d)/, '"time":"9'],
+        [/"offset":"[+-]/, (match: string) => match.replace(/[+-]$/, (sign) => (sign === '+' ? '-' : '+'))],
+        [/"actor":"(.)/, '"actor":"Z'],
+        [/"previous":"(.)/, (match: string) => `"previous":"${match.endsWith('0') ? '1' : '0'}`],
+      ] as const) {
+        const edited = lines.map((line, index) => (index === seq ? line.replace(pattern, replacement as string) : line));
+        expect(edited[seq]).not.toBe(lines[seq]);
+        await writeFile(journalPath, edited.join('\n') + '\n');
+        const report = await verifyJournal(journalPath);
+        expect(report.ok).toBe(false);
+        // An edited link is found where it no longer matches (the line before); anything else names the line's own entry.
+        expect(report.problems[0]).toMatchObject({ seq: String(pattern).includes('previous') ? seq - 1 : seq, kind: 'tampered' });
+      }
+    }
+    await writeFile(journalPath, original);
+    expect((await verifyJournal(journalPath)).ok).toBe(true);
+  });
+
+  it('refuses an entry whose time, offset or link has the wrong shape even when the chain is re-hashed around it', async () => {
+    const { entryLine, lineHash } = await import('../../src-main/store/journal/format.js');
+    const journalPath = await writeSampleJournal(await tempFolder(), 4);
+    const lines = (await readFile(journalPath, 'utf8')).split('\n').slice(0, -1);
+    for (const [field, value, named] of [
+      ['time', '2026-12-05T09:14:03Z', 'time'],
+      ['time', '2026-12-05T09:14:03.120z', 'time'],
+      ['offset', '+1:00', 'offset'],
+      ['offset', '±01:00', 'offset'],
+      ['previous', 'A'.repeat(64), 'previous'],
+    ] as const) {
+      // Rewrite entry 2 with a bad field and re-link every later entry, so only the shape check can catch it.
+      const rebuilt = [...lines];
+      rebuilt[2] = entryLine({ ...JSON.parse(lines[2]!), [field]: value });
+      for (let index = 3; index < rebuilt.length; index += 1) rebuilt[index] = entryLine({ ...JSON.parse(rebuilt[index]!), previous: lineHash(rebuilt[index - 1]!) });
+      await writeFile(journalPath, rebuilt.join('\n') + '\n');
+      const report = await verifyJournal(journalPath);
+      expect(report.problems.find((problem) => problem.seq === 2)).toMatchObject({ kind: 'tampered', problem: expect.stringContaining(`field "${named}"`) });
+    }
+  });
+});

@@ -7,18 +7,19 @@
  *   `{ failure: true, time?: number }` (time first, when given, then one failure);
  *   graded `{ grade: string }` (one of the plan's class names).
  *
- * `state` (RunState, inspection/runTypes.ts): `{ decision, rule, llr, n, total }` and
- *   passfail/count: no `model` field (total = nonconforming items / nonconformities);
- *   measurement: `model: 'measurement', sum, mean` (total = sum);
- *   lifetime: `model: 'lifetime', time, failures` (n = counted entries, total = failures);
- *   graded: `model: 'graded', counts, demerits` (total = demerits).
+ * `state` (RunState, inspection/runTypes.ts): `{ decision, rule, llr, n, total }` and the model's own
+ *   fields, as its evidence state type in engine/models/<model>/ says: passfail/count none and no
+ *   `model` field (total = nonconforming items / nonconformities); measurement `sum, mean`
+ *   (total = sum); lifetime `time, failures` (n = counted entries, total = failures); graded
+ *   `counts, demerits` (total = demerits). Every other model carries its name in `model`.
  *
- * `live` (InspectionLive): the engine's `linearCountLiveState` (passfail/count, no `model`), or
- *   `{ model, ...measurementLiveState | lifetimeLiveState | gradedLiveState }`.
+ * `live` (InspectionLive): the model's live state (`liveState` of its SequentialModel), e.g.
+ *   `linearCountLiveState` for passfail/count (no `model` field).
  *
- * `frame` (InspectionFrame): what the evidence chart draws the run against; `horizon`, `limits`,
- *   `lnA`, `lnB`, `truncation` mean what they mean in the pass/fail frame:
- *   passfail/count: EvidenceFrame, limits `{ n, accept, reject }` in nonconforming items/nonconformities;
+ * `frame` (InspectionFrame): what the evidence chart draws the run against, the model's `frame`
+ *   (LinearCountFrame, MeasurementFrame, LifetimeFrame, GradedFrame in its folder); `horizon`,
+ *   `limits`, `lnA`, `lnB`, `truncation` mean what they mean in the pass/fail frame:
+ *   passfail/count: limits `{ n, accept, reject }` in nonconforming items/nonconformities;
  *   measurement: limits `{ n, accept, reject }` of the running sum (plan unit) vs n, `rejectWhen`, `unit`;
  *   lifetime: limits `{ failures, acceptTime, rejectTime }` (accumulated test time per failure count,
  *     null where that line does not apply), horizon = last failure count drawn, `maxTime`,

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { idSchema } from '../../store/ids.js';
 import type { PlanSpec } from '../../engine/index.js';
-import type { QualityEstimate, RecordDecision } from '../../record/recordInput.js';
-import { RUN_OUTCOMES, type RunOutcome, type RunRow } from '../../inspection/index.js';
+import type { QualityEstimate, RecordDecision } from '../../record/input/decisionRecordInput.js';
+import { RUN_OUTCOMES, type RunHistory, type RunOutcome, type RunRow } from '../../inspection/index.js';
+
+export type { RunHistory };
 import type { InspectionEntry, InspectionFrame } from './inspectionChannels.js';
 
 /** Run ids become file names: the same characters the store allows. */
@@ -52,18 +54,6 @@ export interface RecordRunView {
 export interface RecordFile {
   readonly fileName: string;
   readonly interim: boolean;
-}
-
-/** The Records place's list: the rows that pass the filter, and what the filter can offer. */
-export interface RunHistory {
-  /** Rows that pass the filter, newest start first. */
-  readonly rows: RunRow[];
-  /** Every source that has runs, by name. */
-  readonly sources: Array<{ readonly id: string; readonly name: string }>;
-  /** Runs before filtering. */
-  readonly totalRuns: number;
-  /** Runs whose journal is damaged, before filtering. */
-  readonly damaged: number;
 }
 
 export interface RecordChannelOutputs {

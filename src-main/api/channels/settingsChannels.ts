@@ -17,6 +17,7 @@ export const settingsChannels = {
         .gt(0.5, 'The confidence level is above 50 %.')
         .lt(1, 'The confidence level is below 100 %.')
         .optional(),
+      theme: z.enum(['system', 'light', 'dark'], 'The theme is system, light or dark.').optional(),
     }),
   },
   /** Where the data lives and where a restore keeps the data it replaces, for the restore's confirmation. */

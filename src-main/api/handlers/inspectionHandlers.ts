@@ -66,7 +66,7 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
       : { status: 'open' as const, decision: null, rule: null, closedAt: null };
     const taken = outcome.entry;
     const entry: InspectionEntry | null =
-      taken === null ? null : { ...taken, after: taken.voided ? null : pointOf(outcome.state) };
+      taken === null ? null : { ...taken, after: taken.voided ? null : pointOf(spec, outcome.state) };
     return { seq: outcome.seq, kind, entry, run: { status, decision, rule, closedAt }, state: outcome.state, live, frame: evidenceFrame(spec, live) };
   }
 

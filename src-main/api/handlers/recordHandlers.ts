@@ -1,4 +1,3 @@
-import type { PlanSpec } from '../../engine/index.js';
 import {
   RunJournalUnverifiedError,
   RunNotFoundError,
@@ -6,17 +5,13 @@ import {
   requireIntact,
   type IntactRunRead,
   type RunCatalogue,
-  matchesRunFilter,
-  evidenceFrame,
-  runLive,
-  withStatistics,
-  type RunRow,
+  runHistory,
+  runPicture,
 } from '../../inspection/index.js';
-import { entriesToCsv } from '../../record/entriesCsv.js';
-import { decisionRecordFromRun, recordContextFor } from '../../record/fromRun.js';
-import type { DecisionRecordInput } from '../../record/recordInput.js';
-import { renderDecisionRecord } from '../../record/renderDecisionRecord.js';
-import type { InspectionEntry, InspectionFrame } from '../channels/inspectionChannels.js';
+import { entriesToCsv } from '../../record/input/entriesToCsv.js';
+import { decisionRecordFromRun, recordContextFor } from '../../record/input/decisionRecordFromRun.js';
+import type { DecisionRecordInput } from '../../record/input/decisionRecordInput.js';
+import { renderDecisionRecord } from '../../record/pdf/renderDecisionRecord.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
 
@@ -56,15 +51,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
   }
 
   return {
-    'record.history': async (filter) => {
-      const every = await catalogue.listRuns();
-      return {
-        rows: every.filter((row) => matchesRunFilter(row, filter)),
-        sources: sourcesOf(every),
-        totalRuns: every.length,
-        damaged: every.filter((row) => row.outcome === 'damaged').length,
-      };
-    },
+    'record.history': async (filter) => runHistory(await catalogue.listRuns(), filter),
 
     'record.open': async ({ runId }) => {
       const { read, input } = await recordOf(runId);
@@ -75,7 +62,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
         plan: { id: plan.id, name: plan.name, version: plan.version, spec: plan.spec },
         lotSize: run.lotSize,
         inspectors: input.subject.inspectors,
-        ...recordEvidence(read, plan.spec),
+        ...runPicture(plan.spec, read.replay.results, read.replay.evidence.state()),
         decision: input.decision,
         estimate: input.qualityEstimate,
         interim: input.interim,
@@ -91,19 +78,7 @@ export function createRecordHandlers(context: RecordHandlerContext): RecordHandl
 
     'record.csv': async ({ runId }) => {
       const { input } = await recordOf(runId);
-      return { fileName: `${fileStem(input, 'entries')}.csv`, interim: input.interim, text: entriesToCsv(input.entries, input.plan.model) };
+      return { fileName: `${fileStem(input, 'entries')}.csv`, interim: input.interim, text: entriesToCsv(input.entries) };
     },
   };
-}
-
-/** Every source that has runs, by name, for the Records filter. */
-function sourcesOf(rows: readonly RunRow[]): Array<{ id: string; name: string }> {
-  const named = new Map<string, string>();
-  for (const row of rows) if (row.sourceId !== null && row.sourceName !== null) named.set(row.sourceId, row.sourceName);
-  return [...named].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
-}
-
-/** The evidence path and the frame it is drawn in: the run's pictures, as the Inspect place draws them. */
-function recordEvidence(read: IntactRunRead, spec: PlanSpec): { entries: InspectionEntry[]; frame: InspectionFrame } {
-  return { entries: withStatistics(spec, read.replay.results), frame: evidenceFrame(spec, runLive(spec, read.replay.evidence.state())) };
 }

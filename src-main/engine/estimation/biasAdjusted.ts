@@ -1,4 +1,4 @@
-import { bracketAbove, solveIncreasing } from './monotoneRoot.js';
+import { bracketAbove, solveIncreasing } from '../numerics/rootFinding.js';
 import type { StagewiseTail, StoppingEvaluator } from './stoppingDistribution.js';
 import { StagewiseSide } from './stagewiseOrder.js';
 import { checkStoppingPoint } from './stoppingPoints.js';

@@ -1,5 +1,6 @@
 import { binomialCdf } from '../distributions/binomial.js';
 import { poissonCdf } from '../distributions/poisson.js';
+import { bisectBoundary, expandUntil } from '../numerics/rootFinding.js';
 
 /** The naive estimate with its fixed-sample interval, labelled with its method. */
 export interface NaiveQualityEstimate {
@@ -20,16 +21,9 @@ export interface NaiveEstimateCounts {
   confidenceLevel: number;
 }
 
-const BISECTION_STEPS = 200;
-
 /** The x in [low, high] where a decreasing function crosses `target`, by bisection. */
 function solveDecreasing(f: (x: number) => number, target: number, low: number, high: number): number {
-  for (let step = 0; step < BISECTION_STEPS && high - low > 1e-15 * Math.max(1, high); step++) {
-    const middle = (low + high) / 2;
-    if (f(middle) > target) low = middle;
-    else high = middle;
-  }
-  return (low + high) / 2;
+  return bisectBoundary((x) => f(x) <= target, low, high, { absoluteTolerance: 1e-15 * Math.max(1, high) });
 }
 
 function checkCounts({ model, itemsInspected, nonconformities, confidenceLevel }: NaiveEstimateCounts): void {
@@ -75,8 +69,7 @@ export function naiveQualityEstimate(counts: NaiveEstimateCounts): NaiveQualityE
       unit: 'fraction nonconforming',
     };
   }
-  let high = 2 * d + 20;
-  while (poissonCdf(d, high) > tail) high *= 2;
+  const high = expandUntil((mean) => poissonCdf(d, mean) <= tail, 2 * d + 20, Number.MAX_VALUE);
   const lower = d === 0 ? 0 : solveDecreasing((mean) => poissonCdf(d - 1, mean), 1 - tail, 0, high) / n;
   const upper = solveDecreasing((mean) => poissonCdf(d, mean), tail, 0, high) / n;
   return {

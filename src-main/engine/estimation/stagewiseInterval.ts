@@ -1,5 +1,5 @@
 import { PlanParameterError } from '../errors.js';
-import { bracketAbove, solveIncreasing } from './monotoneRoot.js';
+import { bracketAbove, solveIncreasing } from '../numerics/rootFinding.js';
 import type { StagewiseTail, StoppingEvaluator } from './stoppingDistribution.js';
 import { checkStoppingPoint } from './stoppingPoints.js';
 

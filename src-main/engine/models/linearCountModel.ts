@@ -8,7 +8,9 @@ import { decideLinearCount, linearCountLiveState, type LinearCountLiveState } fr
 import { linearCountWork } from './linearCountWork.js';
 import { resolvePlan, type ResolvedPlan } from '../resolvePlan.js';
 import type { LinearCountSpec } from '../spec.js';
-import type { EvidenceDecision, ModelLabels, SequentialModel } from './sequentialModel.js';
+import { linearCountEvidenceText, readableLinearCountPlan } from './linearCountText.js';
+import { frameHorizon, MINIMUM_ITEM_HORIZON, type EntryText, type EvidenceDecision, type ModelFlags, type ModelLabels, type SequentialModel } from './sequentialModel.js';
+import { linearCountRecordLines, type LinearCountRecordWords } from './linearCountRecordLines.js';
 
 /** n items and their cumulative count (nonconforming items or nonconformities). */
 export interface LinearCountEvidence {
@@ -21,6 +23,20 @@ export interface LinearCountEvidenceState extends EvidenceDecision {
   readonly model?: undefined;
 }
 
+/**
+ * What the evidence chart draws a pass/fail or count run against: the acceptance and rejection
+ * numbers for item counts 1..horizon (a row at the truncation holds the truncation rule) and the
+ * LLR limits of the lines in use.
+ */
+export interface LinearCountFrame {
+  readonly model?: undefined;
+  readonly horizon: number;
+  readonly limits: LimitRow[];
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: number | null;
+}
+
 export interface LinearCountShapes<S extends LinearCountSpec, O> {
   spec: S;
   plan: ResolvedPlan;
@@ -30,15 +46,27 @@ export interface LinearCountShapes<S extends LinearCountSpec, O> {
   live: LinearCountLiveState;
   row: LimitRow;
   design: LinearCountDesign;
+  frame: LinearCountFrame;
 }
 
 /** What a linear-count model adds to the shared integer-line machinery: its labels and how a result counts. */
-export interface LinearCountEntry<O> {
+export interface LinearCountEntry<S extends LinearCountSpec, O> {
   labels: ModelLabels;
   /** The sentence for a result this model does not take, or null. */
   problem(observation: unknown): string | null;
   /** What one result adds to the cumulative count. */
   count(observation: O): number;
+  /** One result drawn at quality theta from uniforms on [0, 1). */
+  draw(quality: number, uniform: () => number): O;
+  /** One typed line as a result (`feed`, `replay`). */
+  parseText(text: string): EntryText<O>;
+  /** The hypotheses in words for the readable design, e.g. "p0 = 0.01, p1 = 0.1". */
+  qualities(spec: S): string;
+  /** True when one item can carry more than one count, so a rejection number above n is possible. */
+  readonly countCanExceedItems: boolean;
+  readonly flags: ModelFlags<S>;
+  /** How its decision record names the count and the results. */
+  record: LinearCountRecordWords<O>;
 }
 
 /**
@@ -50,7 +78,7 @@ export interface LinearCountEntry<O> {
  */
 export function linearCountModel<S extends LinearCountSpec, O>(
   name: S['model'],
-  entry: LinearCountEntry<O>,
+  entry: LinearCountEntry<S, O>,
 ): SequentialModel<LinearCountShapes<S, O>> {
   return {
     name,
@@ -76,5 +104,33 @@ export function linearCountModel<S extends LinearCountSpec, O>(
     limitRows: (plan, horizon) => linearCountLimitRows(plan.lines, plan.lines.truncation === null ? horizon : Math.min(horizon, plan.lines.truncation)),
     estimateWork: (spec, curvePoints) => linearCountWork(spec, curvePoints),
     design: (spec, options = {}) => designLinearCountPlan(spec, options),
+    frame(plan, live) {
+      const { lines, countWeight } = plan;
+      // Far enough ahead to show the earliest accept and the earliest reject.
+      const reach = live.n + Math.max(live.itemsToEarliestAccept ?? 0, live.itemsToEarliestReject ?? 0);
+      const horizon = frameHorizon({ reached: live.n, reach, minimum: MINIMUM_ITEM_HORIZON, limit: lines.truncation });
+      return {
+        horizon,
+        limits: linearCountLimitRows(lines, horizon),
+        // ln A and ln B of the lines in use (the fitted ones when the plan fits exact risks).
+        lnA: lines.h2 * countWeight,
+        lnB: -lines.h1 * countWeight,
+        truncation: lines.truncation,
+      };
+    },
+    point: (state) => ({ n: state.n, total: state.total, llr: state.llr }),
+    parseEntryText: (_plan, text) => entry.parseText(text),
+    drawObservation: (_plan, _evidence, quality, uniform) => entry.draw(quality, uniform),
+    flags: entry.flags,
+    text: {
+      result: (observation) => String(observation),
+      ...linearCountEvidenceText,
+      design: (spec, design) => readableLinearCountPlan(spec, design, entry.qualities(spec), entry.countCanExceedItems),
+    },
+    json: {
+      state: () => ({}),
+      summary: (state) => ({ n: state.n, total: state.total }),
+    },
+    recordLines: (plan) => linearCountRecordLines(plan, entry.labels, entry.record),
   };
 }

@@ -10,7 +10,8 @@ import { gradedModel } from './graded/gradedModel.js';
 import { lifetimeModel } from './lifetime/lifetimeModel.js';
 import { measurementModel } from './measurement/measurementModel.js';
 import { passFailModel } from './passfail/passFailModel.js';
-import type { DesignOptions, ModelLabels, ModelShapes, SequentialModel } from './sequentialModel.js';
+import type { DesignOptions, EntryText, EvidencePoint, ModelFlags, ModelLabels, ModelShapes, SequentialModel } from './sequentialModel.js';
+import type { RecordLines } from './recordLines.js';
 
 const models = {
   passfail: passFailModel,
@@ -35,6 +36,8 @@ export type PlanLiveState = { [M in ModelName]: ShapesOf<M>['live'] }[ModelName]
 export type LimitRowOf<M extends ModelName> = M extends ModelName ? ShapesOf<M>['row'] : never;
 /** One result of a run of any model, as the run service takes it. */
 export type Observation = { [M in ModelName]: ShapesOf<M>['observation'] }[ModelName];
+/** What the evidence chart draws a run of any model against; pass/fail and count carry no `model` field. */
+export type PlanFrame = { [M in ModelName]: ShapesOf<M>['frame'] }[ModelName];
 /** The accumulated evidence of a run of any model (opaque outside the model). */
 export type Evidence = { [M in ModelName]: ShapesOf<M>['evidence'] }[ModelName];
 
@@ -44,6 +47,11 @@ export const modelNames = Object.keys(models) as ModelName[];
 /** A model's labels (title, quality symbol, hypotheses' symbols, what an entry is). */
 export function modelLabels(model: ModelName): ModelLabels {
   return models[model].labels;
+}
+
+/** A model's plan flags (which it takes, their help lines, its spec from them). */
+export function modelFlags(model: ModelName): ModelFlags<PlanSpec> {
+  return models[model].flags as ModelFlags<PlanSpec>;
 }
 
 /** The model of a spec, erased to the shapes every model shares. */
@@ -79,6 +87,30 @@ export interface SequentialPlan<M extends ModelName = ModelName> {
   liveState(state: EvidenceState): PlanLiveState;
   /** Rows of the limits table up to `horizon` (items, or failure counts for lifetime), none past the truncation. */
   limitRows(horizon: number): LimitRowOf<M>[];
+  /** What the evidence chart draws the run against, from its look-ahead (as `liveState` gave it). */
+  frame(live: PlanLiveState): PlanFrame;
+  /** The point of the evidence path after a state. */
+  point(state: EvidenceState): EvidencePoint;
+  /** One typed line (trimmed, not blank) as a result of this plan, or what is wrong with it. */
+  parseEntryText(text: string): EntryText<Observation>;
+  /** One result drawn at `quality` after the evidence given, from uniforms on [0, 1) (simulated runs, the demo). */
+  drawObservation(evidence: Evidence, quality: number, uniform: () => number): Observation;
+  /** How a terminal shows the plan's runs and design. */
+  readonly text: {
+    result(observation: Observation): string;
+    evidence(state: EvidenceState): string;
+    readonly evidenceColumn: string;
+    evidenceCell(state: EvidenceState): string;
+    reached(state: EvidenceState): string;
+    design(design: PlanDesign): string;
+  };
+  /** The model's fields of the CLI's JSON (`run show` state, `replay` summary). */
+  readonly json: {
+    state(state: EvidenceState): Record<string, unknown>;
+    summary(state: EvidenceState): Record<string, unknown>;
+  };
+  /** What a decision record prints of the plan, in the model's words and natural units. */
+  recordLines(): RecordLines<{ design: DesignOf<M>; state: EvidenceState; observation: Observation; row: LimitRowOf<M> }>;
 }
 
 /**
@@ -105,6 +137,20 @@ export function planOf<S extends PlanSpec>(spec: S): SequentialPlan<S['model']> 
     state: (evidence) => model.state(plan, evidence) as EvidenceState,
     liveState: (state) => model.liveState(plan, state) as PlanLiveState,
     limitRows: (horizon) => model.limitRows(plan, horizon) as LimitRowOf<S['model']>[],
+    frame: (live) => model.frame(plan, live) as PlanFrame,
+    point: (state) => model.point(state),
+    drawObservation: (evidence, quality, uniform) => model.drawObservation(plan, evidence, quality, uniform) as Observation,
+    parseEntryText: (text) => model.parseEntryText(plan, text) as EntryText<Observation>,
+    text: {
+      result: (observation) => model.text.result(observation),
+      evidence: (state) => model.text.evidence(state),
+      evidenceColumn: model.text.evidenceColumn,
+      evidenceCell: (state) => model.text.evidenceCell(state),
+      reached: (state) => model.text.reached(state),
+      design: (design) => model.text.design(spec, design),
+    },
+    json: model.json,
+    recordLines: () => model.recordLines(plan) as unknown as ReturnType<SequentialPlan<S['model']>['recordLines']>,
   };
 }
 

@@ -6,6 +6,7 @@
 import type { Decision } from '../integerLines.js';
 import { checkCurvePoints, type PlanWorkEstimate } from '../planWork.js';
 import type { PlanSpec } from '../spec.js';
+import type { RecordLines } from './recordLines.js';
 
 /** Options every design takes; a model ignores the ones that do not apply to it. */
 export interface DesignOptions {
@@ -40,6 +41,12 @@ export interface ModelLabels {
   readonly hypotheses: readonly [string, string];
   /** What one entry is, singular and plural, e.g. ["item", "items"]. */
   readonly entry: readonly [string, string];
+  /**
+   * What the running total per entry is a rate of when totals of runs pool into one figure
+   * ("fraction nonconforming", "nonconformities per item"); null when the total is no count of
+   * nonconforming items (a sum of measurements, failures over test time, demerits).
+   */
+  readonly pooledRate: string | null;
 }
 
 /** The types one model works with, named once so the contract can be written for every model. */
@@ -59,6 +66,77 @@ export interface ModelShapes {
   row: object;
   /** Everything shown about a plan, discriminated by `model`. */
   design: { readonly model: PlanSpec['model'] };
+  /** What the evidence chart draws a run against: limits in natural units up to a horizon and the LLR limits in use. */
+  frame: { readonly horizon: number; readonly lnA: number; readonly lnB: number };
+}
+
+/** One point of the evidence path after an entry: n against the running total, and for lifetime the test time. */
+export interface EvidencePoint {
+  readonly n: number;
+  readonly total: number;
+  readonly llr: number;
+  /** Lifetime only: the accumulated test time (the point is failures = total against time). */
+  readonly time?: number;
+}
+
+/** One typed input line as a result: the result, or a sentence saying what is wrong. */
+export type EntryText<O> = { readonly result: O } | { readonly problem: string };
+
+/**
+ * One plan flag of the command line, as data: the CLI turns each kind into its flag reader
+ * (`cli/planFlags.ts`). A flag two models share has one kind.
+ */
+export type PlanFlag =
+  | { readonly name: string; readonly kind: 'probability' | 'probabilities' | 'positive' | 'finite' | 'switch' | 'classNames' }
+  | { readonly name: string; readonly kind: 'integer'; readonly min: number }
+  | { readonly name: string; readonly kind: 'choice'; readonly values: readonly [string, ...string[]] }
+  | { readonly name: string; readonly kind: 'text'; readonly what: string; readonly limit: number };
+
+/** How a model's spec reads its flags; the CLI supplies it and its errors. */
+export interface PlanFlagReader {
+  /** The value of a required flag (throws, naming the flag and what it takes, when missing). */
+  need<V>(name: string): V;
+  /** The value of an optional flag, undefined when not given. */
+  given<V>(name: string): V | undefined;
+  /** Refuses a flag's value with a sentence; never returns. */
+  refuse(name: string, allowed: string, message: string): never;
+}
+
+/** A model's plan flags: which it takes, their help lines, and its spec from them. */
+export interface ModelFlags<S> {
+  /** The flags this model takes besides --model (in the order the help lists them). */
+  readonly own: readonly PlanFlag[];
+  /** Help lines for these flags, each starting with two spaces. */
+  readonly usage: readonly string[];
+  /** The spec from the flags given; the model's checks then check the relations. */
+  spec(read: PlanFlagReader): S;
+}
+
+/** How a terminal shows a model's runs and plans (`run show`, `replay`, `plan`). */
+export interface ModelTerminalText<T extends ModelShapes> {
+  /** One result as typed back: pass/fail, a count, a value, `time T`, `fail [T]` or a class name. */
+  result(observation: T['observation']): string;
+  /** The evidence in words for the state line of `run show`, e.g. "n = 12, sum = 121.3". */
+  evidence(state: T['state']): string;
+  /** The heading of `replay`'s evidence column. */
+  readonly evidenceColumn: string;
+  /** The evidence after a line, for `replay`'s table. */
+  evidenceCell(state: T['state']): string;
+  /** How far the run went, for `replay`'s decision line, e.g. "after 12 items, total 1". */
+  reached(state: T['state']): string;
+  /** The readable form of the plan's design (`plan` without --json). */
+  design(spec: T['spec'], design: T['design']): string;
+}
+
+/**
+ * The model's fields of the JSON the CLI prints (README "Command line"; station scripts read them,
+ * so the keys and their order never change).
+ */
+export interface ModelJsonFields<T extends ModelShapes> {
+  /** Added to `{decision, n, total, llr}` in `run show --json`'s state: measurement {sum, mean}, lifetime {time, failures}, graded {counts, demerits}. */
+  state(state: T['state']): Record<string, unknown>;
+  /** Between decision and llr in `replay --json`: {n, total}, measurement {n, sum}, lifetime {time, failures}, graded {n, counts}. */
+  summary(state: T['state']): Record<string, unknown>;
 }
 
 /**
@@ -104,6 +182,43 @@ export interface SequentialModel<T extends ModelShapes> {
    * @throws PlanParameterError for an invalid spec or options.
    */
   design(spec: T['spec'], options?: DesignOptions): T['design'];
+  /** What a decision record prints of the plan, in the model's words and natural units (recordLines.ts). */
+  recordLines(plan: T['plan']): RecordLines<T>;
+  /** What the evidence chart draws the run against, up to the horizon `frameHorizon` gives from the look-ahead. */
+  frame(plan: T['plan'], live: T['live']): T['frame'];
+  /** The point of the evidence path after a state. */
+  point(state: T['state']): EvidencePoint;
+  /** One typed line (`feed`, `replay`) as a result of this model, before observationProblem checks it against the run. */
+  parseEntryText(plan: T['plan'], text: string): EntryText<T['observation']>;
+  /**
+   * One result drawn at `quality` (the model's quality parameter, labels.quality) after the evidence
+   * given, from uniforms on [0, 1): for simulated runs such as the demo.
+   */
+  drawObservation(plan: T['plan'], evidence: T['evidence'], quality: number, uniform: () => number): T['observation'];
+  readonly flags: ModelFlags<T['spec']>;
+  readonly text: ModelTerminalText<T>;
+  readonly json: ModelJsonFields<T>;
+}
+
+/** Items (failures for lifetime) drawn beyond the furthest point the run can reach next, so the steps ahead stay in view. */
+export const HORIZON_MARGIN = 1.25;
+
+/**
+ * The one horizon rule of every evidence chart (screens and record alike): far enough to show
+ * `reach` (where the run can next decide or is expected to end) with a margin, at least `minimum`,
+ * never past `limit` (the truncation) unless the run already stands there (`reached`).
+ */
+export function frameHorizon(reach: { readonly reached: number; readonly reach: number; readonly minimum: number; readonly limit: number | null }): number {
+  const ahead = Math.max(reach.minimum, Math.ceil(HORIZON_MARGIN * reach.reach));
+  return reach.limit === null ? ahead : Math.min(reach.limit, Math.max(ahead, reach.reached));
+}
+
+/** Items drawn at least by a chart against items. */
+export const MINIMUM_ITEM_HORIZON = 10;
+
+/** Items to draw for a run that went `n` items and may go `expectedRemaining` more (at least one): the horizon rule in items. */
+export function itemHorizon(n: number, expectedRemaining: number, truncation: number | null): number {
+  return frameHorizon({ reached: n, reach: n + Math.max(1, expectedRemaining), minimum: MINIMUM_ITEM_HORIZON, limit: truncation });
 }
 
 /** Throws unless curvePoints is an integer from 2 to 10001; returns it (default 51). */

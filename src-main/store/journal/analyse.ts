@@ -44,41 +44,43 @@ export function analyseJournal(bytes: Buffer): JournalAnalysis {
   let expectedSeq = 0;
   let previousHash = GENESIS_HASH;
 
-  lines.forEach((lineBytes, index) => {
+  for (let index = 0; index < lines.length; index += 1) {
+    const lineBytes = lines[index]!;
     const lineNumber = index + 1;
-    const report = (seq: number, line: number, problem: string): void => {
-      problems.push({ seq, line, problem, kind: 'tampered' });
-    };
     const parsed = parseEntry(lineBytes);
     if (typeof parsed === 'string') {
-      report(expectedSeq, lineNumber, parsed);
+      problems.push(tampered(expectedSeq, lineNumber, parsed));
+      expectedSeq += 1;
     } else {
       entries.push(parsed);
       if (parsed.seq !== expectedSeq) {
-        report(
-          expectedSeq,
-          lineNumber,
-          parsed.seq > expectedSeq
-            ? `entry ${expectedSeq} is missing: line ${lineNumber} holds seq ${parsed.seq} (deleted or reordered)`
-            : `line ${lineNumber} holds seq ${parsed.seq} where seq ${expectedSeq} belongs (reordered or duplicated)`,
+        problems.push(
+          tampered(
+            expectedSeq,
+            lineNumber,
+            parsed.seq > expectedSeq
+              ? `entry ${expectedSeq} is missing: line ${lineNumber} holds seq ${parsed.seq} (deleted or reordered)`
+              : `line ${lineNumber} holds seq ${parsed.seq} where seq ${expectedSeq} belongs (reordered or duplicated)`,
+          ),
         );
       } else if (parsed.previous !== previousHash) {
         const suspect = Math.max(0, parsed.seq - 1);
-        report(
-          suspect,
-          parsed.seq === 0 ? lineNumber : lineNumber - 1,
-          parsed.seq === 0
-            ? 'entry 0 does not start the chain from the genesis value'
-            : `entry ${suspect} does not match the hash recorded by entry ${parsed.seq} (edited, or the link altered)`,
+        problems.push(
+          tampered(
+            suspect,
+            parsed.seq === 0 ? lineNumber : lineNumber - 1,
+            parsed.seq === 0
+              ? 'entry 0 does not start the chain from the genesis value'
+              : `entry ${suspect} does not match the hash recorded by entry ${parsed.seq} (edited, or the link altered)`,
+          ),
         );
       } else if (parsed.seq === 0 && !isHeader(parsed)) {
-        report(0, lineNumber, `entry 0 is not an "open" header naming ${JOURNAL_FORMAT}`);
+        problems.push(tampered(0, lineNumber, `entry 0 is not an "open" header naming ${JOURNAL_FORMAT}`));
       }
       expectedSeq = parsed.seq + 1;
     }
-    if (typeof parsed === 'string') expectedSeq += 1;
     previousHash = lineHash(lineBytes);
-  });
+  }
 
   problems.sort((a, b) => a.line - b.line);
   if (tornTail !== null) {
@@ -90,6 +92,10 @@ export function analyseJournal(bytes: Buffer): JournalAnalysis {
     });
   }
   return { entries, fingerprint: lines.length === 0 ? null : previousHash, problems, tornTail };
+}
+
+function tampered(seq: number, line: number, problem: string): JournalProblem {
+  return { seq, line, problem, kind: 'tampered' };
 }
 
 function splitLines(bytes: Buffer): { lines: Buffer[]; tornTail: TornTail | null } {

@@ -4,7 +4,7 @@
  * Machines get fractions (JSON, CSV, the CLI's --json); only the screen and the record use this,
  * and both write it with the record's one formatter.
  */
-import { formatNumber, formatPercent } from '../../../src-main/record/format.js';
+import { formatNumber, formatPercent } from '../../../src-main/engine/numberText.js';
 
 export function percentText(fraction: number | null | undefined): string {
   if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return '–';

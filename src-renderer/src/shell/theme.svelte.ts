@@ -1,23 +1,50 @@
-/** Light or dark, remembered per machine; follows the system until the user picks one. */
-export type ThemeName = 'light' | 'dark';
+/**
+ * Light or dark. The choice is the `theme` setting (system, light or dark) in the data folder's
+ * settings, the same in the desktop window and the browser; "system" follows the operating
+ * system, also when it changes while the app is open. The last choice is cached per machine so
+ * the first paint already has it.
+ */
+import { request } from '../lib/channelClient';
 
-const storageKey = 'tallyline.theme';
+export type ThemeName = 'light' | 'dark';
+export type ThemeSetting = 'system' | 'light' | 'dark';
+
+const cacheKey = 'tallyline.theme';
+const systemDark = matchMedia('(prefers-color-scheme: dark)');
 
 class Theme {
-  current = $state<ThemeName>(initialTheme());
+  setting = $state<ThemeSetting>(cachedSetting());
+  private systemIsDark = $state(systemDark.matches);
+  current = $derived<ThemeName>(this.setting === 'system' ? (this.systemIsDark ? 'dark' : 'light') : this.setting);
 
+  constructor() {
+    systemDark.addEventListener('change', (event) => {
+      this.systemIsDark = event.matches;
+      apply(this.current);
+    });
+    apply(this.current);
+    void request('settings.get', null).then((result) => {
+      if (result.ok) this.follow(result.value.theme);
+    });
+  }
+
+  /** Switches between light and dark and saves the choice as the `theme` setting. */
   toggle(): void {
-    this.current = this.current === 'light' ? 'dark' : 'light';
-    localStorage.setItem(storageKey, this.current);
+    const next: ThemeName = this.current === 'light' ? 'dark' : 'light';
+    this.follow(next);
+    void request('settings.update', { theme: next });
+  }
+
+  private follow(setting: ThemeSetting): void {
+    this.setting = setting;
+    localStorage.setItem(cacheKey, setting);
     apply(this.current);
   }
 }
 
-function initialTheme(): ThemeName {
-  const saved = localStorage.getItem(storageKey);
-  const theme: ThemeName = saved === 'dark' || saved === 'light' ? saved : matchMedia('(prefers-color-scheme: dark)').matches ? 'dark' : 'light';
-  apply(theme);
-  return theme;
+function cachedSetting(): ThemeSetting {
+  const cached = localStorage.getItem(cacheKey);
+  return cached === 'dark' || cached === 'light' || cached === 'system' ? cached : 'system';
 }
 
 function apply(theme: ThemeName): void {

@@ -3,7 +3,7 @@ import { decisionAt, resolvePlan } from '../../../src-main/engine/index.js';
 import type { CountSpec, PassFailSpec } from '../../../src-main/engine/index.js';
 import { createStoppingEvaluator, stagewiseInference } from '../../../src-main/engine/estimation/index.js';
 import type { StagewiseInference, StoppingEvaluator } from '../../../src-main/engine/estimation/index.js';
-import { seededUniform } from './sequences.js';
+import { seededUniform32 } from '../../../src-main/engine/numerics/seededRandom.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)) truncated at 156 = 3 x 52, the
 // handbook's three-times-the-single-plan rule (exact recursion over the integer lines (computed independently, checked by simulation)).
@@ -59,7 +59,7 @@ describe('coverage of the stagewise interval on the NIST plan truncated at 156',
     // Standard error of a coverage of 0.90 from 4000 runs: sqrt(0.9 x 0.1 / 4000) = 0.0047; the check
     // allows three of them below nominal (a false alarm about 1 time in 700 per p, with a fixed seed never).
     const standardError = Math.sqrt((confidence * (1 - confidence)) / runs);
-    const uniform = seededUniform(20240607);
+    const uniform = seededUniform32(20240607);
     for (const p of trueQualities) {
       let covered = 0;
       for (let run = 0; run < runs; run++) {

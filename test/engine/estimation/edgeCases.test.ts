@@ -6,6 +6,7 @@ import {
   createStoppingEvaluator,
   estimateAfterStop,
 } from '../../../src-main/engine/estimation/index.js';
+import { nistExactTruncated156 } from '../../reference/referenceValues.js';
 import { poissonCdf } from '../referenceDistributions.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 plan (NIST/SEMATECH e-Handbook §6.2.6 (first-hand)): rejection number 2 for n = 2..19,
@@ -81,14 +82,10 @@ describe('estimateAfterStop at the edges of the sample space', () => {
     expect(poissonCdf(observed, result.interval.upper)).toBeCloseTo(0.05, 8);
   });
 
-  it('the stopping distribution reproduces the truncated NIST OC and ASN (exact recursion over the integer lines (computed independently, checked by simulation))', () => {
+  it('the stopping distribution reproduces the truncated NIST OC and ASN of the reference recursion', () => {
     const evaluator = createStoppingEvaluator(nistAt156);
-    // exact recursion over the integer lines (computed independently, checked by simulation): truncated OC 0.97794 / 0.4701 / 0.09964, ASN 30.209 / 36.94 / 22.367.
-    const cases = [
-      [0.01, 0.97794, 30.209],
-      [0.05, 0.4701, 36.94],
-      [0.1, 0.09964, 22.367],
-    ] as const;
+    // Computed with exactOcAsn(..., 156) (test/reference): truncated OC 0.97794 / 0.4701 / 0.09964, ASN 30.209 / 36.94 / 22.366.
+    const cases = nistExactTruncated156;
     const engine = createPlanEvaluator(nistAt156);
     for (const [p, oc, asn] of cases) {
       const points = evaluator.distribution(p).points;

@@ -105,15 +105,3 @@ export function bisect(f: (p: number) => number, target: number): number {
   }
   return (low + high) / 2;
 }
-
-/** A small seeded uniform generator on [0, 1) (mulberry32), so simulations repeat exactly. */
-export function seededUniform(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}

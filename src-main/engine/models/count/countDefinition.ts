@@ -1,3 +1,4 @@
+import { fillPoissonCdf } from '../../distributions/poisson.js';
 import type { CountSpec } from '../../spec.js';
 import { checkOrdered, checkPositive, checkRisksAndTruncation } from '../../validate.js';
 import type { LinearCountDefinition } from '../linearCountDefinition.js';
@@ -60,18 +61,7 @@ export const countDefinition: LinearCountDefinition<CountSpec> = {
 
   curveRange: (spec) => ({ from: 0, to: 2 * spec.lambda1 }),
 
-  fillCountCdf(theta, n, out) {
-    // Poisson(n theta) pmf by the ratio recursion in log space.
-    const mean = n * theta;
-    const logMean = Math.log(mean);
-    let logPmf = -mean;
-    let cumulative = 0;
-    for (let k = 0; k < out.length; k++) {
-      cumulative += Math.exp(logPmf);
-      logPmf += logMean - Math.log(k + 1);
-      out[k] = Math.min(1, cumulative);
-    }
-  },
+  fillCountCdf: (theta, n, out) => fillPoissonCdf(n * theta, out),
 
   parseObservation: (x) => (Number.isInteger(x) && x >= 0 ? x : null),
 };

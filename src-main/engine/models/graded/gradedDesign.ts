@@ -4,7 +4,7 @@ import { classCountRecursion } from './classCountRecursion.js';
 import { simulateGradedSprt } from './gradedSimulation.js';
 import type { SimulatedPoint } from './gradedSimulation.js';
 import type { Decision } from '../../integerLines.js';
-import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import { waldOperatingPoint } from '../../waldCurve.js';
 import type { GradedSpec } from '../../spec.js';
 import { checkInteger } from '../../validate.js';
 import { countOf } from '../../countWords.js';

@@ -1,6 +1,6 @@
 import { PlanParameterError } from '../../errors.js';
 import type { Decision } from '../../integerLines.js';
-import type { IncrementLaw } from '../../numerics/waldExponent.js';
+import type { IncrementLaw } from '../../waldCurve.js';
 import type { GradedSpec } from '../../spec.js';
 import { checkRisksAndTruncation } from '../../validate.js';
 import { waldLimits } from '../../waldBoundaries.js';

@@ -1,7 +1,7 @@
 /**
  * The size of a graded design, estimated from the spec before any of it is done.
  */
-import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import { waldOperatingPoint } from '../../waldCurve.js';
 import { EXTRA_POINTS, relativeGap, workHorizon, type PlanWorkEstimate } from '../../planWork.js';
 import type { GradedSpec } from '../../spec.js';
 import { GRADED_EXACT_LIMIT } from './gradedDesign.js';

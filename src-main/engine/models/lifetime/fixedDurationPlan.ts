@@ -1,5 +1,6 @@
 import { poissonCdf } from '../../distributions/poisson.js';
 import { PlanParameterError } from '../../errors.js';
+import { bisectBoundary, expandUntil } from '../../numerics/rootFinding.js';
 
 /** Fixed-duration reliability test: run for `time`, accept iff failures <= `acceptFailures`. */
 export interface FixedDurationPlan {
@@ -26,22 +27,16 @@ export function fixedDurationRisks(theta0: number, theta1: number, time: number,
  * P(N <= c | theta0) >= 1 - alpha and P(N <= c | theta1) <= beta.
  *
  * Method: for c = 0, 1, ... the shortest time with P(N <= c | theta1) <= beta (bisection on the
- * Poisson mean, the CDF falls as the mean grows); the first c whose time also meets the producer's
- * point gives the shortest test (that time grows with c).
+ * Poisson mean by numerics/rootFinding; the CDF falls as the mean grows); the first c whose time
+ * also meets the producer's point gives the shortest test (that time grows with c).
  * References: Epstein, B. (1960), "Statistical life test acceptance procedures", Technometrics 2(4);
  * MIL-HDBK-781A fixed-duration plans (table from memory, risks computed with a Poisson CDF), fixed-time demonstration factors (computed independently).
  */
 export function fixedDurationPlan(theta0: number, theta1: number, alpha: number, beta: number): FixedDurationPlan {
   for (let c = 0; c <= 10000; c++) {
-    let low = 0;
-    let high = c + 1;
-    while (poissonCdf(c, high) > beta) high *= 2;
-    for (let i = 0; i < 200 && high - low > 1e-13 * high; i++) {
-      const middle = 0.5 * (low + high);
-      if (poissonCdf(c, middle) > beta) low = middle;
-      else high = middle;
-    }
-    const time = high * theta1;
+    const meetsBeta = (mean: number): boolean => poissonCdf(c, mean) <= beta;
+    const high = expandUntil(meetsBeta, c + 1, Number.MAX_VALUE);
+    const time = bisectBoundary(meetsBeta, 0, high, { relativeTolerance: 1e-13 }) * theta1;
     const risks = fixedDurationRisks(theta0, theta1, time, c);
     if (risks.alpha <= alpha) return { time, acceptFailures: c, ...risks };
   }

@@ -1,7 +1,7 @@
 import { evaluatePoissonSprt } from './poissonSprtExact.js';
 import { PlanParameterError } from '../../errors.js';
 import type { Decision } from '../../integerLines.js';
-import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import { waldOperatingPoint } from '../../waldCurve.js';
 import type { LifetimeSpec } from '../../spec.js';
 import { checkInteger } from '../../validate.js';
 import { countOf } from '../../countWords.js';

@@ -1,8 +1,13 @@
 import { lifetimeWork } from './lifetimeWork.js';
+import { lifetimeRecordLines } from './lifetimeRecordLines.js';
 import type { LifetimeSpec } from '../../spec.js';
-import type { EvidenceDecision, SequentialModel } from '../sequentialModel.js';
+import { countOf } from '../../countWords.js';
+import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
+import { RISK_FLAGS, RISK_USAGE, UNIT_FLAG, UNIT_USAGE, risksFrom, unitFrom } from '../commonPlanFlags.js';
+import { frameHorizon, type EntryText, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
+import { readableLifetimePlan } from './lifetimeText.js';
 import { designLifetimePlan, lifetimeLiveState, type LifetimeDesign, type LifetimeLiveState } from './lifetimeDesign.js';
-import { acceptTime, decideLifetime, lifetimeLimitRows, lifetimePlan, type LifetimePlan } from './lifetimePlan.js';
+import { acceptTime, decideLifetime, lifetimeBoundaries, lifetimeLimitRows, lifetimePlan, type LifetimePlan } from './lifetimePlan.js';
 
 /** A reading of accumulated test time, or a failure (at an accumulated time, when given). */
 export type LifetimeObservation = { readonly time: number } | { readonly failure: true; readonly time?: number };
@@ -29,6 +34,36 @@ export interface LifetimeLimitRow {
   failures: number;
   acceptTime: number | null;
   rejectTime: number | null;
+}
+
+/** Lifetime: per failure count, the accumulated test time that accepts and the latest failure time that rejects. */
+export interface LifetimeFrame {
+  readonly model: 'lifetime';
+  /** The largest failure count drawn. */
+  readonly horizon: number;
+  readonly limits: LifetimeLimitRow[];
+  readonly lnA: number;
+  readonly lnB: number;
+  readonly truncation: null;
+  readonly maxTime: number | null;
+  readonly maxFailures: number | null;
+  readonly unit: string | null;
+}
+
+/** Failure counts drawn at least, for a lifetime chart. */
+const MINIMUM_FAILURES = 3;
+
+/**
+ * One typed line as a lifetime entry: `time T` (accumulated test time), `fail` (a failure now) or
+ * `fail T` (time reaches T, then a failure).
+ */
+function parseLifetimeText(text: string): EntryText<LifetimeObservation> {
+  const match = /^(time|fail)(?:\s+(\S+))?$/i.exec(text);
+  const at = match?.[2];
+  const allowed = `${JSON.stringify(text)} is not "time T", "fail" or "fail T" (T the accumulated test time, a number of 0 or more)`;
+  if (match === null || (at !== undefined && !NUMBER_TEXT.test(at)) || (at !== undefined && Number(at) < 0)) return { problem: allowed };
+  if (match[1].toLowerCase() === 'time') return at === undefined ? { problem: allowed } : { result: { time: Number(at) } };
+  return { result: at === undefined ? { failure: true } : { failure: true, time: Number(at) } };
 }
 
 const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null && !Array.isArray(value);
@@ -79,9 +114,10 @@ export const lifetimeModel: SequentialModel<{
   live: LifetimeLiveState & { readonly model: 'lifetime' };
   row: LifetimeLimitRow;
   design: LifetimeDesign;
+  frame: LifetimeFrame;
 }> = {
   name: 'lifetime',
-  labels: { title: 'lifetime', quality: 'theta', hypotheses: ['theta0', 'theta1'], entry: ['entry', 'entries'] },
+  labels: { title: 'lifetime', quality: 'theta', hypotheses: ['theta0', 'theta1'], entry: ['entry', 'entries'], pooledRate: null },
   plan: lifetimePlan,
   emptyEvidence: () => ({ n: 0, time: 0, failures: 0 }),
   observationProblem(_plan, result, evidence) {
@@ -102,4 +138,64 @@ export const lifetimeModel: SequentialModel<{
   limitRows: (plan, horizon) => lifetimeLimitRows(plan, plan.maxFailures === null ? horizon : Math.min(horizon, plan.maxFailures)),
   estimateWork: lifetimeWork,
   design: designLifetimePlan,
+  frame(plan, live) {
+    // Failure counts far enough to show the next possible rejection, and the first one of the plan.
+    const horizon = frameHorizon({
+      reached: live.failures,
+      reach: live.failures + Math.max(1, live.failuresToReject ?? 0),
+      minimum: Math.max(MINIMUM_FAILURES, lifetimeBoundaries(plan).firstRejectFailures),
+      limit: plan.maxFailures,
+    });
+    return {
+      model: 'lifetime',
+      horizon,
+      limits: lifetimeLimitRows(plan, horizon),
+      lnA: plan.lnA,
+      lnB: plan.lnB,
+      truncation: null,
+      maxTime: plan.maxTime,
+      maxFailures: plan.maxFailures,
+      unit: plan.spec.unit ?? null,
+    };
+  },
+  point: (state) => ({ n: state.n, total: state.total, llr: state.llr, time: state.time }),
+  // The next failure, an exponential time with mean `quality` (the MTBF) after the test time so far, by inversion.
+  drawObservation: (_plan, evidence, quality, uniform) => ({ failure: true, time: evidence.time - quality * Math.log1p(-uniform()) }),
+  parseEntryText: (_plan, text) => parseLifetimeText(text),
+  flags: {
+    own: [{ name: 'theta0', kind: 'positive' }, { name: 'theta1', kind: 'positive' }, ...RISK_FLAGS, { name: 'max-time', kind: 'positive' }, { name: 'max-failures', kind: 'integer', min: 1 }, UNIT_FLAG],
+    usage: [
+      '  --model lifetime           exponential times to failure:',
+      '     --theta0 T --theta1 T [--max-time T] [--max-failures R]   (theta1 < theta0, MTBF in your time unit)',
+      RISK_USAGE,
+      UNIT_USAGE,
+    ],
+    spec(read) {
+      const risks = risksFrom(read);
+      const theta0 = read.need<number>('theta0');
+      const theta1 = read.need<number>('theta1');
+      return {
+        model: 'lifetime',
+        theta0,
+        theta1,
+        ...risks,
+        maxTime: read.given<number>('max-time') ?? null,
+        maxFailures: read.given<number>('max-failures') ?? null,
+        ...unitFrom(read),
+      };
+    },
+  },
+  text: {
+    result: (observation) => ('failure' in observation ? (observation.time === undefined ? 'fail' : `fail ${observation.time}`) : `time ${observation.time}`),
+    evidence: (state) => `test time = ${formatNumber(state.time)}, failures = ${state.failures}`,
+    evidenceColumn: 'evidence',
+    evidenceCell: (state) => `T ${formatNumber(state.time)}, r ${state.failures}`,
+    reached: (state) => `after ${countOf(state.n, 'entry', 'entries')}, T ${formatNumber(state.time)}, r ${state.failures}`,
+    design: readableLifetimePlan,
+  },
+  json: {
+    state: (state) => ({ time: state.time, failures: state.failures }),
+    summary: (state) => ({ time: state.time, failures: state.failures }),
+  },
+  recordLines: lifetimeRecordLines,
 };

@@ -4,7 +4,7 @@ import type { Decision } from '../../integerLines.js';
 import type { LifetimeSpec } from '../../spec.js';
 import { checkRisksAndTruncation } from '../../validate.js';
 import { waldLimits } from '../../waldBoundaries.js';
-import type { IncrementLaw } from '../../numerics/waldExponent.js';
+import type { IncrementLaw } from '../../waldCurve.js';
 
 /** Largest failure count at which a test stops (README "Limits"): the limits table and the exact evaluation grow with it. */
 export const MAX_FAILURES = 10_000;

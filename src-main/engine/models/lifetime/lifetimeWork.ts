@@ -1,7 +1,7 @@
 /**
  * The size of a lifetime design, estimated from the spec before any of it is done.
  */
-import { waldOperatingPoint } from '../../numerics/waldExponent.js';
+import { waldOperatingPoint } from '../../waldCurve.js';
 import { EXTRA_POINTS, relativeGap, type PlanWorkEstimate } from '../../planWork.js';
 import type { LifetimeSpec } from '../../spec.js';
 import { lifetimeIncrementLaw, lifetimePlan } from './lifetimePlan.js';

@@ -1,3 +1,4 @@
+import { fillIncompleteGammaIntegrals } from '../../distributions/gamma.js';
 /**
  * Exact operating characteristics of a continuous-time SPRT on a Poisson failure process: after k
  * failures the test accepts at time acceptBase + k step (no further failure by then) and rejects at
@@ -26,22 +27,6 @@ export interface PoissonSprtPoint {
 const UNDECIDED_STOP = 1e-12;
 /** Longest piece in units of 1/rate, so the series for the incomplete gamma integrals converge fast. */
 const PIECE_LENGTH = 2;
-
-/** J_k = int_0^L x^k e^{-x} dx for k = 0..out.length-1, by the all-positive series (no cancellation). */
-function incompleteGammas(length: number, out: Float64Array): void {
-  const decay = Math.exp(-length);
-  let power = length;
-  for (let k = 0; k < out.length; k++) {
-    let term = 1;
-    let sum = 1;
-    for (let m = 1; m < 200 && term > 1e-17 * sum; m++) {
-      term *= length / (k + m + 1);
-      sum += term;
-    }
-    out[k] = (decay * power * sum) / (k + 1);
-    power *= length;
-  }
-}
 
 /**
  * Evaluates the plan at failure rate `rate` (1/MTBF).
@@ -126,7 +111,7 @@ function run(lines: PoissonSprtLines, rate: number, degreeCap: number, horizonFa
     const rejectEnd = maxFailures !== null && failures >= maxFailures ? last + 1 : Math.min(last + 1, pieceAt(rejectBase + failures * step));
     for (let j = first; j < rejectEnd; j++) {
       const u0 = rate * starts[j];
-      incompleteGammas(rate * (starts[j + 1] - starts[j]), gammas);
+      fillIncompleteGammaIntegrals(rate * (starts[j + 1] - starts[j]), gammas);
       let mass = 0;
       let moment = 0;
       for (let k = 0; k <= degreeCap; k++) {

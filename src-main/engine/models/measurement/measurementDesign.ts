@@ -3,7 +3,7 @@ import { lookAhead, type LookAhead } from '../../lookAhead.js';
 import type { NormalSprtEvaluator } from './normalSprtExact.js';
 import { PlanParameterError } from '../../errors.js';
 import type { Decision } from '../../integerLines.js';
-import { normalQuantile } from '../../numerics/normalDistribution.js';
+import { normalQuantile } from '../../distributions/normal.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { checkInteger } from '../../validate.js';
 import type { KlDivergences } from '../linearCountDefinition.js';

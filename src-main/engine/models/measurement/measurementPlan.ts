@@ -3,7 +3,8 @@ import type { KlDivergences } from '../linearCountDefinition.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { checkRisksAndTruncation } from '../../validate.js';
 import { waldLimits } from '../../waldBoundaries.js';
-import { waldOcFromExponent } from '../../waldCurve.js';
+import { waldOperatingPoint } from '../../waldCurve.js';
+import type { IncrementLaw } from '../../waldCurve.js';
 import type { Decision } from '../../integerLines.js';
 
 /**
@@ -127,14 +128,25 @@ export function measurementDrift(plan: MeasurementPlan, mu: number): number {
  * Method: z ~ N(m, s^2) with m = (mu1 - mu0)(mu - (mu0 + mu1)/2)/sigma^2, s = |mu1 - mu0|/sigma, so
  * E[e^{hz}] = 1 at h = -2m/s^2 = (mu1 + mu0 - 2 mu)/(mu1 - mu0); OC = (A^h - 1)/(A^h - B^h),
  * ASN = (OC ln B + (1 - OC) ln A)/m; at mu = midpoint OC = ln A/(ln A - ln B), ASN = -ln A ln B/s^2.
- * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3 and ch. 5; normal SPRT by the Fredholm integral equation (computed independently).
+ * The formulas are the engine's one Wald solver (waldOperatingPoint), given the closed-form h.
+ * References: Wald, A. (1947), Sequential Analysis, §3.2, §3.3 and ch. 5 (from memory).
  */
 export function measurementWaldPoint(plan: MeasurementPlan, mu: number, lnA: number, lnB: number): { oc: number; asn: number } {
+  const { oc, asn } = waldOperatingPoint(measurementIncrementLaw(plan, mu), lnA, lnB);
+  return { oc, asn };
+}
+
+/** The law of one measurement's LLR increment at true mean mu: normal, so its Wald exponent is known. */
+export function measurementIncrementLaw(plan: MeasurementPlan, mu: number): IncrementLaw {
   const drift = measurementDrift(plan, mu);
   const variance = plan.stepScale * plan.stepScale;
-  if (Math.abs(drift) <= 1e-12 * plan.stepScale) return { oc: lnA / (lnA - lnB), asn: (-lnA * lnB) / variance };
-  const oc = waldOcFromExponent((-2 * drift) / variance, lnA, lnB);
-  return { oc, asn: (oc * lnB + (1 - oc) * lnA) / drift };
+  return {
+    mean: drift,
+    secondMoment: variance + drift * drift,
+    // z ~ N(m, s^2): ln E[e^{hz}] = h m + h^2 s^2/2, zero again at h = -2m/s^2.
+    logMomentGenerating: (h) => h * drift + 0.5 * h * h * variance,
+    exponent: (-2 * drift) / variance,
+  };
 }
 
 /** Accept/reject lines for the cumulative sum of measurements against n. */

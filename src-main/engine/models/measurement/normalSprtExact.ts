@@ -1,5 +1,5 @@
 import { compositeGaussLegendre } from '../../numerics/gaussLegendre.js';
-import { normalCdf, normalDensity } from '../../numerics/normalDistribution.js';
+import { normalCdf, normalDensity } from '../../distributions/normal.js';
 
 /** Exact operating characteristics of an SPRT whose LLR moves by normal steps. */
 export interface NormalSprtPoint {

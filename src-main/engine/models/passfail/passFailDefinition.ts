@@ -1,3 +1,4 @@
+import { fillBinomialCdf } from '../../distributions/binomial.js';
 import type { PassFailSpec } from '../../spec.js';
 import { checkOrdered, checkProbability, checkRisksAndTruncation } from '../../validate.js';
 import type { LinearCountDefinition } from '../linearCountDefinition.js';
@@ -63,19 +64,7 @@ export const passFailDefinition: LinearCountDefinition<PassFailSpec> = {
 
   curveRange: (spec) => ({ from: 0, to: Math.min(0.999, 2 * spec.p1) }),
 
-  fillCountCdf(theta, n, out) {
-    // Binomial(n, theta) pmf by the ratio recursion in log space (q^n underflows for large n).
-    const logRatio = Math.log(theta) - Math.log1p(-theta);
-    let logPmf = n * Math.log1p(-theta);
-    let cumulative = 0;
-    for (let k = 0; k < out.length; k++) {
-      if (k <= n) {
-        cumulative += Math.exp(logPmf);
-        logPmf += Math.log((n - k) / (k + 1)) + logRatio;
-      }
-      out[k] = Math.min(1, cumulative);
-    }
-  },
+  fillCountCdf: (theta, n, out) => fillBinomialCdf(n, theta, out),
 
   parseObservation: (x) => (x === 0 || x === 1 ? x : null),
 };
