@@ -5,7 +5,7 @@
  */
 import { PlanParameterError } from '../engine/index.js';
 import { visibleText } from '../store/textFields.js';
-import { UsageError } from './flags.js';
+import { UsageError, messageInTypedUnits } from './flags.js';
 
 /** A failure that is not a usage error (a missing run, a data folder that is a file): exit 1 with this one line. */
 export class CliFailure extends Error {
@@ -101,7 +101,7 @@ export async function runCommand(name: string, command: Command, args: readonly 
       return EXIT_USAGE;
     }
     if (error instanceof PlanParameterError) {
-      io.stderr(`tallyline ${name}: ${flagForParameter(error.parameter)}: ${errorLine(error)}\n`);
+      io.stderr(`tallyline ${name}: ${flagForParameter(error.parameter)}: ${messageInTypedUnits(errorLine(error), args)}\n`);
       return EXIT_USAGE;
     }
     io.stderr(`tallyline ${name}: ${errorLine(error)}\n`);

@@ -27,6 +27,8 @@ export interface Flag<T> {
   readonly allowed: string;
   /** Reads the raw text (or true for a switch); throws UsageError through `parseFlags`. */
   parse(raw: string): T;
+  /** What is allowed, said in the unit of what was typed (a percent answered in percent). */
+  allowedFor?(raw: string): string;
 }
 
 export type FlagTable = Record<string, Flag<unknown>>;
@@ -50,10 +52,44 @@ function fromSchema<T>(allowed: string, schema: z.ZodType<T>, toInput: (raw: str
 
 const numeric = (raw: string): unknown => (NUMBER_TEXT.test(raw.trim()) ? Number(raw) : Number.NaN);
 
+/** Whether a proportion was typed as a percent ("1%", "1 %"). */
+export const typedAsPercent = (raw: string): boolean => /%\s*$/.test(raw);
+
+/**
+ * A proportion as a script may write it: a fraction (0.01) or a percent (1%); NaN for anything else.
+ * Fractions stay the machine form (JSON out, plan files); the percent form is for people typing.
+ */
+export function proportionFromText(raw: string): number {
+  const text = raw.trim();
+  if (typedAsPercent(text)) {
+    const number = text.replace(/%\s*$/, '').trim();
+    return NUMBER_TEXT.test(number) ? Number(number) / 100 : Number.NaN;
+  }
+  return NUMBER_TEXT.test(text) ? Number(text) : Number.NaN;
+}
+
+/**
+ * An engine message ("p1 must be greater than p0 (got p0 = 0.01, p1 = 0.005)") with the values of
+ * the proportions typed in percent written back in percent, so the answer uses the user's unit.
+ */
+export function messageInTypedUnits(message: string, args: readonly string[]): string {
+  let rewritten = message;
+  for (let i = 0; i + 1 < args.length; i += 1) {
+    const name = /^--(p0|p1|alpha|beta)$/.exec(args[i])?.[1];
+    if (name === undefined || !typedAsPercent(args[i + 1]) || args[i + 1].includes(',')) continue;
+    rewritten = rewritten.replace(new RegExp(`\\b${name} = (-?[0-9.]+(?:e-?[0-9]+)?)`, 'g'), (_, value: string) => `${name} = ${Number((Number(value) * 100).toPrecision(6))}%`);
+  }
+  return rewritten;
+}
+
+export const PROPORTION_ALLOWED = 'a fraction in (0, 1) or a percent in (0%, 100%), e.g. 0.01 or 1%';
+/** The allowed range of a proportion in the unit it was typed in. */
+export const proportionAllowedFor = (raw: string): string => (typedAsPercent(raw) ? 'a percent above 0% and below 100%' : 'a fraction above 0 and below 1 (or a percent such as 1%)');
+
 /** Constructors for the usual kinds of flag; each states its allowed range in words. */
 export const flag = {
   /** A number strictly between 0 and 1. */
-  probability: (): Flag<number> => fromSchema('a number in (0, 1)', z.number().gt(0).lt(1), numeric),
+  probability: (): Flag<number> => ({ ...fromSchema(PROPORTION_ALLOWED, z.number().gt(0).lt(1), proportionFromText), allowedFor: proportionAllowedFor }),
   /** A finite number greater than 0. */
   positive: (): Flag<number> => fromSchema('a number greater than 0', z.number().gt(0).finite(), numeric),
   /** An integer in [min, max]. */
@@ -124,7 +160,7 @@ export function parseFlags<F extends FlagTable>(args: readonly string[], table: 
       throw new UsageError(
         `--${name}`,
         definition.allowed,
-        `--${name} must be ${definition.allowed} (got ${shown(raw)})`,
+        `--${name} must be ${definition.allowedFor?.(raw) ?? definition.allowed} (got ${shown(raw)})`,
       );
     }
   }

@@ -5,7 +5,7 @@
  * model by name.
  */
 import { modelFlags, modelLabels, modelNames, NUMBER_TEXT, type ModelName, type PlanFlag, type PlanFlagReader, type PlanSpec } from '../engine/index.js';
-import { UsageError, flag, rejectFlags, requireFlag } from './flags.js';
+import { PROPORTION_ALLOWED, UsageError, flag, proportionAllowedFor, proportionFromText, rejectFlags, requireFlag } from './flags.js';
 import type { Flag, FlagTable } from './flags.js';
 
 function numberFlag(name: string, allowed: string, accept: (value: number) => boolean): Flag<number> {
@@ -22,15 +22,15 @@ function numberFlag(name: string, allowed: string, accept: (value: number) => bo
 
 /** A probability, or a comma-separated list of them; the model decides which it needs. */
 function probabilitiesFlag(name: string): Flag<number | number[]> {
-  const allowed = 'a number in (0, 1)';
   return {
     takesValue: true,
-    allowed,
+    allowed: PROPORTION_ALLOWED,
     parse(raw) {
       const parts = raw.split(',').map((part) => part.trim());
-      const values = parts.map((part) => (NUMBER_TEXT.test(part) ? Number(part) : Number.NaN));
+      const values = parts.map(proportionFromText);
       if (values.some((value) => !(value > 0 && value < 1))) {
-        const what = parts.length > 1 ? 'a comma-separated list of numbers, each in (0, 1)' : allowed;
+        const each = proportionAllowedFor(raw);
+        const what = parts.length > 1 ? `a comma-separated list, each ${each}` : each;
         throw new UsageError(`--${name}`, what, `--${name} must be ${what} (got ${JSON.stringify(raw)})`);
       }
       return parts.length === 1 ? values[0] : values;

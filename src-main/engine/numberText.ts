@@ -37,3 +37,31 @@ export function withUnit(value: number, unit: string): string {
 export function percentText(level: number): string {
   return `${Number((level * 100).toPrecision(3))} %`;
 }
+
+/**
+ * A proportion for people: percent with the sign, as many digits as its size needs (a tiny share is
+ * never "0 %", a share just below one never "100 %"). The renderer writes them the same way.
+ */
+export function formatPercent(fraction: number): string {
+  const value = fraction * 100;
+  if (value === 0) return '0 %';
+  const size = Math.abs(value);
+  if (size < 1) return `${Number(value.toPrecision(2))} %`;
+  if (size > 99 && size < 100) return `${(Math.floor(value * 100) / 100).toFixed(2)} %`;
+  return `${Number(value.toPrecision(3))} %`;
+}
+
+/** A quality level in its unit: a fraction nonconforming in percent ("1 % nonconforming"), other units as they are. */
+export function formatQuality(value: number, unit: string): string {
+  return unit === 'fraction nonconforming' ? `${formatPercent(value)} nonconforming` : `${formatNumber(value)} ${unit}`;
+}
+
+/** The bare figure of a quality level, without its unit word: "1 %" for a fraction, else the number. */
+function qualityFigure(value: number, unit: string): string {
+  return unit === 'fraction nonconforming' ? formatPercent(value) : formatNumber(value);
+}
+
+/** An interval of quality: "0.18 % to 5.25 %", or "0.1 to 0.9" for other units. */
+export function formatQualityInterval(lower: number, upper: number, unit: string): string {
+  return `${qualityFigure(lower, unit)} to ${Number.isFinite(upper) ? qualityFigure(upper, unit) : 'no upper limit'}`;
+}

@@ -12,10 +12,7 @@ export function formatTable(headers: readonly string[], rows: ReadonlyArray<read
 
 export { formatNumber } from './numberText.js';
 
-/** A probability as a percentage with two decimals. */
-export function formatPercent(value: number): string {
-  return `${(100 * value).toFixed(2)}%`;
-}
+export { formatPercent } from './numberText.js';
 
 /** A decimal number as a user types it (sign, digits, point, exponent): what every number flag and input line accepts. */
 export const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;

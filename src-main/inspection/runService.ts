@@ -12,6 +12,8 @@ import {
   PlanRepository,
   SourceRepository,
   checkId,
+  liveLockOwner,
+  lockPathFor,
   layout,
   newId,
   type QuarantineRecord,
@@ -272,6 +274,13 @@ export function createRunService(options: RunServiceOptions) {
           return readOnlyView(runId);
         }
       });
+    },
+
+    /** Whether another live process holds the run's journal for writing (reads only its lock file). */
+    async heldElsewhere(runId: string): Promise<boolean> {
+      if (open.has(checkId('run', runId))) return false;
+      const holder = await liveLockOwner(lockPathFor(layout.runJournal(dataDirectory, runId)));
+      return holder !== null && holder.pid !== process.pid;
     },
 
     /** Release every journal handle and lock this service holds. */

@@ -1,4 +1,6 @@
-import { mkdtemp, rm } from 'node:fs/promises';
+import { spawn } from 'node:child_process';
+import { once } from 'node:events';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -18,12 +20,12 @@ afterEach(async () => {
   for (const folder of folders.splice(0)) await rm(folder, { recursive: true, force: true });
 });
 
-async function setUp(spec: LinearCountSpec = nistSpec): Promise<{ dispatch: Dispatch; planId: string; sourceId: string }> {
+async function setUp(spec: LinearCountSpec = nistSpec): Promise<{ dispatch: Dispatch; planId: string; sourceId: string; data: string }> {
   const data = await mkdtemp(path.join(os.tmpdir(), 'tallyline-inspection-channels-'));
   folders.push(data);
   const source = await new SourceRepository(data).create({ name: 'Acme Castings' });
   const plan = await new PlanRepository(data).save({ name: 'Incoming housings', sourceId: source.id, spec });
-  return { dispatch: createDispatcher(createHandlers({ dataDirectory: data })), planId: plan.id, sourceId: source.id };
+  return { dispatch: createDispatcher(createHandlers({ dataDirectory: data })), planId: plan.id, sourceId: source.id, data };
 }
 
 function value<T>(result: ChannelResult<unknown>): T {
@@ -106,6 +108,23 @@ describe('the inspection channels', () => {
     expect(await dispatch('inspection.override', { runId: run.id, reason: 'why not' })).toMatchObject({ ok: false, code: 'conflict' });
     expect(await dispatch('inspection.open', { runId: 'run-none' })).toMatchObject({ ok: false, code: 'not-found', field: 'runId' });
     expect(await dispatch('inspection.open', { runId: '../settings' })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'runId' });
+  });
+
+  it('inspection.held says whether another live program holds the run, from its lock file alone', async () => {
+    const { dispatch, planId, sourceId, data } = await setUp();
+    const { run } = await started(dispatch, planId, sourceId);
+    expect(value(await dispatch('inspection.held', { runId: run.id }))).toEqual({ held: false });
+    // A second window on the same data folder, while another program (here a sleeping child) holds the run.
+    const other = createDispatcher(createHandlers({ dataDirectory: data }));
+    const holder = spawn('sleep', ['30']);
+    try {
+      await writeFile(path.join(data, 'runs', `${run.id}.lock`), String(holder.pid));
+      expect(value(await other('inspection.held', { runId: run.id }))).toEqual({ held: true });
+    } finally {
+      holder.kill();
+      await once(holder, 'exit');
+    }
+    expect(value(await other('inspection.held', { runId: run.id }))).toEqual({ held: false });
   });
 
   it('inspection.list shows each run with its counted items and outcome', async () => {

@@ -122,6 +122,11 @@ describe('the settings channels', () => {
     expect(await dispatch('settings.update', { confidenceLevel: 1 })).toMatchObject({ ok: false, code: 'invalid-payload', field: 'confidenceLevel' });
   });
 
+  it('settings.dataFolder names the data folder and the folder a restore keeps the replaced data in', async () => {
+    const { dispatch, data } = await setUp();
+    expect(value(await dispatch('settings.dataFolder', null))).toEqual({ path: data, keptAs: `${data}.before-restore-<date and time>` });
+  });
+
   it('settings.backup and settings.restore round-trip the data, and a damaged archive is refused with the data untouched', async () => {
     const { dispatch } = await setUp();
     value(await dispatch('source.demo', null));

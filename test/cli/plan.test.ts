@@ -51,8 +51,11 @@ describe('tallyline plan', () => {
   });
 
   const badCases: Array<[string, string[], RegExp]> = [
-    ['a probability out of range', ['--p0', '1.5'], /--p0 must be a number in \(0, 1\) \(got "1.5"\)/],
-    ['a value that is not a number', ['--alpha', 'five'], /--alpha must be a number in \(0, 1\)/],
+    ['a probability out of range', ['--p0', '1.5'], /--p0 must be a fraction above 0 and below 1 \(or a percent such as 1%\) \(got "1.5"\)/],
+    ['a percent out of range, answered in percent', ['--p1', '100%'], /--p1 must be a percent above 0% and below 100% \(got "100%"\)/],
+    ['a negative percent, answered in percent', ['--p0', '-1%'], /--p0 must be a percent above 0% and below 100% \(got "-1%"\)/],
+    ['a value that is not a number', ['--alpha', 'five'], /--alpha must be a fraction above 0 and below 1/],
+    ['p1 below p0 typed in percent, answered in percent', ['--p0', '1%', '--p1', '0.5%'], /--p1: p1 must be greater than p0 \(got p0 = 1%, p1 = 0.5%\)/],
     ['p1 below p0', ['--p1', '0.005'], /--p1: p1 must be greater than p0/],
     ['risks that sum to 1 or more', ['--alpha', '0.5', '--beta', '0.5'], /--beta: alpha \+ beta must be less than 1/],
     ['a zero truncation', ['--truncate', '0'], /--truncate must be an integer >= 1 \(got "0"\)/],
@@ -76,7 +79,17 @@ describe('tallyline plan', () => {
   it('exits 2 naming a missing required flag and what it takes', async () => {
     const { code, stderr } = await runCli(['plan', '--model', 'passfail', '--p0', '0.01', '--alpha', '0.05', '--beta', '0.1']);
     expect(code).toBe(2);
-    expect(stderr.trim()).toBe('tallyline plan: --p1 is required: a number in (0, 1)');
+    expect(stderr.trim()).toBe('tallyline plan: --p1 is required: a fraction in (0, 1) or a percent in (0%, 100%), e.g. 0.01 or 1%');
+  });
+
+  it('takes proportions in percent as well as fractions and prints fractions in JSON', async () => {
+    const inPercent = await runCli(['plan', '--model', 'passfail', '--p0', '1%', '--p1', '10 %', '--alpha', '5%', '--beta', '10%', '--points', '2', '--json']);
+    const inFractions = await runCli(['plan', ...nistFlags, '--points', '2', '--json']);
+    expect(inPercent.stderr).toBe('');
+    expect(inPercent.code).toBe(0);
+    expect(JSON.parse(inPercent.stdout)).toEqual(JSON.parse(inFractions.stdout));
+    // Montgomery §15.2.3 (first-hand): the single plan with these risks is n = 52, c = 2.
+    expect(JSON.parse(inPercent.stdout).single).toMatchObject({ n: 52, c: 2 });
   });
 });
 

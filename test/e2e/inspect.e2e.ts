@@ -1,6 +1,8 @@
 import type { Page } from '@playwright/test';
 import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
 import { expect, test, type RunningHost } from './support/browserHostFixture.js';
+import { percentText } from '../../src-renderer/src/lib/percent.js';
+import { ruleText } from '../../src-renderer/src/lib/words.js';
 
 // The NIST/SEMATECH e-Handbook §6.2.6 example plan: p0 1 %, p1 10 %, alpha 5 %, beta 10 %
 // (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
@@ -37,10 +39,17 @@ async function expectEngineNumbers(page: Page, live: LinearCountLiveState): Prom
   await expect(page.getByTestId('counted-total')).toHaveText(String(live.total));
   await expect(page.getByTestId('llr')).toHaveText(live.llr.toFixed(3));
   const open = live.decision === 'continue';
-  await expect(page.getByTestId('next-accept')).toHaveText(open ? String(live.itemsToEarliestAccept) : '–');
-  await expect(page.getByTestId('next-reject')).toHaveText(open ? String(live.nonconformingToReject) : '–');
-  await expect(page.getByTestId('p-accept-h0')).toHaveText(live.probabilityAcceptH0.toFixed(3));
-  await expect(page.getByTestId('p-accept-h1')).toHaveText(live.probabilityAcceptH1.toFixed(3));
+  if (!open) {
+    // A decided run has nothing ahead: no odds, no expected remainder restating the decision.
+    await expect(page.getByTestId('look-ahead-closed')).toBeVisible();
+    await expect(page.getByTestId('p-accept-h0')).toHaveCount(0);
+    return;
+  }
+  await expect(page.getByTestId('next-accept')).toHaveText(String(live.itemsToEarliestAccept));
+  await expect(page.getByTestId('next-reject')).toHaveText(String(live.nonconformingToReject));
+  // Probabilities are written for people: in percent, with the sign.
+  await expect(page.getByTestId('p-accept-h0')).toHaveText(percentText(live.probabilityAcceptH0));
+  await expect(page.getByTestId('p-accept-h1')).toHaveText(percentText(live.probabilityAcceptH1));
   await expect(page.getByTestId('asn-h0')).toHaveText(live.expectedRemainingH0.toFixed(1));
   await expect(page.getByTestId('asn-h1')).toHaveText(live.expectedRemainingH1.toFixed(1));
 }
@@ -107,7 +116,9 @@ test('a run from a saved plan takes results by keyboard and click, voids one, de
   await expect(page.getByTestId('entry-row')).toHaveCount(12 + toAccept);
   await expect(page.getByTestId('entry-pending')).toHaveCount(0);
   await expectEngineNumbers(page, decided);
-  await expect(page.getByTestId('state-rule')).toContainText(decided.rule);
+  // The engine's rule, written with the proper sign (≤) rather than ASCII.
+  await expect(page.getByTestId('state-rule')).toContainText(ruleText(decided.rule));
+  await expect(page.getByTestId('state-rule')).not.toContainText('<=');
   const logBefore = await page.getByTestId('entry-log').innerText();
   const bannerBefore = await page.getByTestId('state-banner').innerText();
 
@@ -155,10 +166,13 @@ test('an unfinished run reopens from the list where it stopped', async ({ page, 
   await page.screenshot({ path: 'test/artifacts/inspect-start-and-runs-light.png' });
   await page.locator('[data-testid="open-run"]', { hasText: 'L-2043' }).click();
   await expectEngineNumbers(page, linearCountLiveState(spec, 5, 0));
-  // On the main keys, minus is part of an id until the scan ends with Enter, then it records.
+  // On the main keys, minus is part of an id, also after the scan has ended; the number pad's minus records.
   await page.keyboard.type('SN-9');
   await page.keyboard.press('Enter');
   await page.keyboard.press('Minus');
+  await expect(page.getByTestId('item-id')).toHaveValue('SN-9-');
+  await page.getByTestId('item-id').fill('SN-9');
+  await page.keyboard.press('NumpadSubtract');
   const sixth = page.locator('[data-testid="entry-row"][data-seq="6"]');
   await expect(sixth).toContainText('SN-9');
   await expect(sixth).toContainText('nonconforming');

@@ -145,7 +145,7 @@ test('a plan is saved under a source, exported, re-imported and equal', async ({
 
   // An edit saved to that plan becomes version 2; version 1 stays as it was.
   await page.getByLabel("Consumer's risk β").fill('5');
-  await expect(page.getByTestId('save-status')).toContainText('differ from the version opened');
+  await expect(page.getByTestId('draft-of')).toContainText('differ from saved “Bracket, hole position” v1');
   await page.getByRole('button', { name: 'Save as version 2' }).click();
   await expect(page.getByTestId('plan-versions').locator('li')).toHaveCount(2);
 });
@@ -174,6 +174,39 @@ test('count data take rates per unit or per 100 units and keep their meaning whe
   // The pass/fail values typed before are still there when switching back.
   await page.getByLabel('Pass/fail items').check();
   await expect(page.getByLabel('Acceptable quality p0')).toHaveValue('1');
+});
+
+test('the table copies as text with the plan’s parameters above it', async ({ page, host, context }) => {
+  await context.grantPermissions(['clipboard-read', 'clipboard-write']);
+  await page.goto(host.url);
+  await enterNist(page);
+  await expect(page.getByTestId('single-n')).toHaveText('52');
+  await page.getByRole('button', { name: 'Copy as text' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Copied 156 rows as text' })).toBeVisible();
+  const lines = (await page.evaluate(() => navigator.clipboard.readText())).split('\n');
+  // The NIST/SEMATECH e-Handbook §6.2.6 example (first-hand), written as the screen writes it.
+  expect(lines[0]).toBe('Plan: pass/fail, p0 = 1 %, p1 = 10 %, α = 5 %, β = 10 %, no truncation');
+  expect(lines[1]).toBe('');
+  expect(lines[2]).toBe('Items inspected\tAccept if nonconforming items at most\tReject if nonconforming items at least');
+});
+
+test('while the plan for new inputs computes, saving says it is computing rather than that the inputs make no plan', async ({ page, host }) => {
+  await page.goto(host.url);
+  await enterNist(page);
+  await expect(page.getByTestId('single-n')).toHaveText('52');
+  await page.getByLabel('Plan name').fill('Slow one');
+  // Hold the next design answer back, as a long graded design would.
+  let release: () => void = () => {};
+  const held = new Promise<void>((resolve) => (release = resolve));
+  await page.route('**/api/plan.design', async (route) => {
+    await held;
+    await route.continue();
+  });
+  await page.getByLabel('Rejectable quality p1').fill('12');
+  await expect(page.getByTestId('save-status')).toHaveText('Computing the plan for these inputs…');
+  await expect(page.getByTestId('save-status')).not.toContainText('do not make a plan');
+  release();
+  await expect(page.getByTestId('save-status')).not.toContainText('Computing');
 });
 
 test('the table copies as CSV', async ({ page, host, context }) => {

@@ -74,7 +74,8 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   await expect(rows).toHaveCount(4);
 
   // The period filter, against the start date the table shows: a period ending the day before shows none.
-  const started = (await rows.first().locator('td').nth(4).innerText()).slice(0, 10);
+  // The table writes dates in the OS locale; the machine-readable date rides in <time datetime>.
+  const started = ((await rows.first().locator('td').nth(4).locator('time').getAttribute('datetime')) ?? '').slice(0, 10);
   const dayBefore = new Date(Date.parse(`${started}T12:00:00Z`) - 86_400_000).toISOString().slice(0, 10);
   await page.getByTestId('filter-to').fill(dayBefore);
   await expect(rows).toHaveCount(0);
@@ -92,6 +93,8 @@ test('the Records place lists runs, filters them, opens one read-only with its c
   await expect(page.getByTestId('record-n')).toHaveText('2');
   await expect(page.getByTestId('record-total')).toHaveText('2');
   await expect(page.getByTestId('record-estimate')).toContainText('Whitehead 1986');
+  // The estimate is written for people: a fraction nonconforming in percent, with the sign at both ends.
+  await expect(page.getByTestId('estimate-interval')).toHaveText(/^\d+(\.\d+)? % to \d+(\.\d+)? %$/);
   await expect(page.getByTestId('evidence-counts').locator('canvas')).toBeVisible();
   await expect(page.getByTestId('evidence-llr').locator('canvas')).toBeVisible();
   await expect(view.getByRole('textbox')).toHaveCount(0);

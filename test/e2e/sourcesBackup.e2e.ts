@@ -29,13 +29,24 @@ test('settings are saved; a backup downloads, a damaged copy is refused with the
   await writeFile(damaged, bytes.subarray(0, bytes.length - 40));
   await page.getByTestId('restore-file').setInputFiles(damaged);
   await page.getByTestId('restore').click();
+  await page.getByTestId('restore-confirmed').click();
   await expect(page.getByTestId('settings-problem')).toContainText('The archive was refused');
   await expect(page.getByTestId('settings-problem')).toContainText('the current data is untouched');
   await expect(page.getByTestId('source-item')).toHaveCount(4);
   await page.getByTestId('settings').screenshot({ path: 'test/artifacts/sources-restore-refused.png' });
 
+  // Restore asks first, naming what it replaces and where the old data goes; Cancel changes nothing.
   await page.getByTestId('restore-file').setInputFiles(archive);
   await page.getByTestId('restore').click();
+  const confirm = page.getByTestId('restore-confirm');
+  await expect(confirm).toContainText(`Replace all data in ${host.dataDirectory} — every source, plan, run and these settings — with the archive backup.tallyline-archive?`);
+  await expect(confirm).toContainText(`the data now in use is kept beside it as ${host.dataDirectory}.before-restore-<date and time>`);
+  await page.getByTestId('settings').screenshot({ path: 'test/artifacts/sources-restore-confirm.png' });
+  await page.getByTestId('restore-cancel').click();
+  await expect(confirm).toHaveCount(0);
+  await expect(page.getByTestId('source-item')).toHaveCount(4);
+  await page.getByTestId('restore').click();
+  await page.getByTestId('restore-confirmed').click();
   await expect(page.getByTestId('settings-status')).toContainText('Restored 3 sources, 3 plans and 13 runs');
   await expect(page.getByTestId('source-item')).toHaveCount(3);
   await expect(page.getByTestId('settings-site')).toHaveValue('Hall B (invented)');

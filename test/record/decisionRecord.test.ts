@@ -52,10 +52,10 @@ describe('the decision record of a decided run', () => {
     for (const expected of [
       'Plan PL-M6-NUT-THREAD, version 3',
       'Model passfail',
-      'H0 (acceptable quality): p0 = 0.01 fraction nonconforming',
-      'H1 (rejectable quality): p1 = 0.05 fraction nonconforming',
-      "Producer's risk (alpha) 0.05 nominal; 0.0412 exact",
-      "Consumer's risk (beta) 0.1 nominal; 0.0968 exact",
+      'H0 (acceptable quality): p0 = 1 % nonconforming',
+      'H1 (rejectable quality): p1 = 5 % nonconforming',
+      "Producer's risk (alpha) 5 % nominal; 4.12 % exact",
+      "Consumer's risk (beta) 10 % nominal; 9.68 % exact",
       'h1 = 1.3639, h2 = 1.7510, slope s = 0.024985',
       'ln A = 2.8904',
       'ln B = -2.2513',
@@ -93,7 +93,7 @@ describe('the decision record of a decided run', () => {
 
   it('prints the quality estimate with its interval and names the method as naive', () => {
     // Clopper-Pearson for 2 of 135 at 95 %: 0.001799 to 0.05249 (checked against jstat in naiveQualityEstimate.test.ts).
-    expect(text).toContain('0.01481 fraction nonconforming; 95 % confidence interval 0.001799 to 0.05249');
+    expect(text).toContain('1.48 % nonconforming; 95 % confidence interval 0.18 % to 5.25 %');
     expect(text).toContain('Naive fraction d/n with exact Clopper-Pearson 95 % interval; ignores the stopping rule');
   });
 

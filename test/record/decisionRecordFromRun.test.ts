@@ -5,7 +5,7 @@ import { estimateAfterStop } from '../../src-main/engine/estimation/index.js';
 import { layout, verifyJournal } from '../../src-main/store/index.js';
 import { decisionRecordForRun, recordIdFor } from '../../src-main/record/input/decisionRecordFromRun.js';
 import { fingerprintFromPdf } from '../../src-main/record/pdf/fingerprintFromPdf.js';
-import { formatNumber } from '../../src-main/engine/numberText.js';
+import { formatNumber, formatPercent, formatQuality, formatQualityInterval } from '../../src-main/engine/numberText.js';
 import { renderDecisionRecord } from '../../src-main/record/pdf/renderDecisionRecord.js';
 import type { DecisionRecordInput } from '../../src-main/record/input/decisionRecordInput.js';
 import { INTERIM_NOTICE } from '../../src-main/record/pdf/titleBlock.js';
@@ -82,10 +82,10 @@ describe('the decision record of a decided run made through the run service', ()
     for (const expected of [
       `Plan M6 flange nut, thread gauge, id ${input.plan.planId}, version 1`,
       'Model passfail',
-      'H0 (acceptable quality): p0 = 0.01 fraction nonconforming',
-      'H1 (rejectable quality): p1 = 0.1 fraction nonconforming',
-      `Producer's risk (alpha) 0.05 nominal; ${formatNumber(design.exact.alpha)} exact`,
-      `Consumer's risk (beta) 0.05 nominal; ${formatNumber(design.exact.beta)} exact`,
+      'H0 (acceptable quality): p0 = 1 % nonconforming',
+      'H1 (rejectable quality): p1 = 10 % nonconforming',
+      `Producer's risk (alpha) 5 % nominal; ${formatPercent(design.exact.alpha)} exact`,
+      `Consumer's risk (beta) 5 % nominal; ${formatPercent(design.exact.beta)} exact`,
       `h1 = ${boundaries.h1.toFixed(4)}, h2 = ${boundaries.h2.toFixed(4)}, slope s = ${boundaries.slope.toFixed(6)}`,
       `ln A = ${boundaries.lnA.toFixed(4)}`,
       `ln B = ${boundaries.lnB.toFixed(4)}`,
@@ -136,9 +136,9 @@ describe('the decision record of a decided run made through the run service', ()
   it("prints Whitehead's bias-adjusted estimate and the stagewise exact interval at the settings' level, with the method named", () => {
     const after = estimateAfterStop(incomingSpec, { n: 57, total: 1, confidence: 0.9 });
     expect(text).toContain(
-      `bias-adjusted ${formatNumber(after.biasAdjusted)} fraction nonconforming; 90 % confidence interval ${formatNumber(after.interval.lower)} to ${formatNumber(after.interval.upper)}`,
+      `bias-adjusted ${formatQuality(after.biasAdjusted, 'fraction nonconforming')}; 90 % confidence interval ${formatQualityInterval(after.interval.lower, after.interval.upper, 'fraction nonconforming')}`,
     );
-    expect(text).toContain(`naive d/n = ${formatNumber(1 / 57)}, for comparison only (biased after a sequential stop)`);
+    expect(text).toContain(`naive d/n = ${formatQuality(1 / 57, 'fraction nonconforming')}, for comparison only (biased after a sequential stop)`);
     expect(text).toContain('Bias-adjusted estimate (Whitehead 1986) and exact 90 % interval from the stagewise ordering of the sample space');
     expect(after.biasAdjusted).toBeLessThan(1 / 57);
   });

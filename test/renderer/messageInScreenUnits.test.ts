@@ -12,7 +12,13 @@ describe('engine messages in the Plan place units', () => {
     expect(messageInScreenUnits('alpha + beta must be less than 1 (got alpha = 0.6, beta = 0.5)', 'count')).toBe(
       'alpha + beta must be less than 100 % (got alpha = 60 %, beta = 50 %)',
     );
-    expect(messageInScreenUnits('alpha must be a number in (0, 1) (got 0)', 'measurement')).toBe('alpha must be above 0 % and below 100 % (got 0)');
+    expect(messageInScreenUnits('alpha must be a number in (0, 1) (got 0)', 'measurement')).toBe('alpha must be above 0 % and below 100 % (got 0 %)');
+  });
+
+  it('answers a value out of range in the percent that was typed', () => {
+    // p1 typed as 100 (%) reaches the engine as 1; p0 typed as -1 (%) as -0.01.
+    expect(messageInScreenUnits('p1 must be a number in (0, 1) (got 1)', 'passfail')).toBe('p1 must be above 0 % and below 100 % (got 100 %)');
+    expect(messageInScreenUnits('p0 must be a number in (0, 1) (got -0.01)', 'passfail')).toBe('p0 must be above 0 % and below 100 % (got -1 %)');
   });
 
   it('leaves rates of the count model as they are', () => {

@@ -68,6 +68,8 @@ export const inspectionChannels = {
   'inspection.list': { input: z.null().optional() },
   /** One run with its entries, state and live look-ahead: an unfinished run continues from here. */
   'inspection.open': { input: z.object({ runId }) },
+  /** Whether another program (e.g. a `feed`) holds the run's journal now; cheap, for polling a read-only view. */
+  'inspection.held': { input: z.object({ runId }) },
   /** Appends one result; answers once it is written and fsync'd. */
   'inspection.record': {
     input: z.object({
@@ -110,6 +112,7 @@ export interface InspectionChannelOutputs {
   'inspection.start': InspectionRunView;
   'inspection.list': RunRow[];
   'inspection.open': InspectionRunView;
+  'inspection.held': { held: boolean };
   'inspection.record': InspectionStep;
   'inspection.void': InspectionStep;
   'inspection.override': InspectionStep;

@@ -20,6 +20,8 @@ export const settingsChannels = {
       theme: z.enum(['system', 'light', 'dark'], 'The theme is system, light or dark.').optional(),
     }),
   },
+  /** Where the data lives and where a restore keeps the data it replaces, for the restore's confirmation. */
+  'settings.dataFolder': { input: z.null().optional() },
   /** The whole data folder as one `tallyline.archive/1` file, base64, to download. */
   'settings.backup': { input: z.null().optional() },
   /** Restores an archive (base64) after checking every file and journal; a damaged one is refused. */
@@ -37,6 +39,7 @@ export const settingsChannels = {
 export interface SettingsChannelOutputs {
   'settings.get': Settings;
   'settings.update': Settings;
+  'settings.dataFolder': { path: string; keptAs: string };
   'settings.backup': { fileName: string; base64: string; files: number; bytes: number };
   'settings.restore': RestoreReport;
 }

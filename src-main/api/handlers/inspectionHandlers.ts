@@ -21,7 +21,7 @@ import { evidenceFrame, pointOf, runLive, withStatistics } from '../../inspectio
 
 type InspectionHandlers = Pick<
   ChannelHandlers,
-  'inspection.start' | 'inspection.list' | 'inspection.open' | 'inspection.record' | 'inspection.void' | 'inspection.override'
+  'inspection.start' | 'inspection.list' | 'inspection.open' | 'inspection.held' | 'inspection.record' | 'inspection.void' | 'inspection.override'
 >;
 
 export interface InspectionHandlerContext {
@@ -86,6 +86,8 @@ export function createInspectionHandlers(context: InspectionHandlerContext): Ins
     'inspection.list': () => catalogue.listRuns(),
 
     'inspection.open': async ({ runId }) => remember(await translated(() => service.openRun(runId), runId)),
+
+    'inspection.held': async ({ runId }) => ({ held: await translated(() => service.heldElsewhere(runId), runId) }),
 
     'inspection.record': async ({ runId, itemId, result, category, note, actor }) => {
       const run = await knownRun(runId);

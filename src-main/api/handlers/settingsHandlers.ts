@@ -3,7 +3,7 @@ import { SettingsRepository } from '../../store/index.js';
 import type { ChannelHandlers } from '../dispatcher.js';
 import { ChannelFailure } from '../result.js';
 
-type SettingsHandlers = Pick<ChannelHandlers, 'settings.get' | 'settings.update' | 'settings.backup' | 'settings.restore'>;
+type SettingsHandlers = Pick<ChannelHandlers, 'settings.get' | 'settings.update' | 'settings.dataFolder' | 'settings.backup' | 'settings.restore'>;
 
 export interface SettingsHandlerContext {
   dataDirectory: string;
@@ -15,6 +15,9 @@ export function createSettingsHandlers(context: SettingsHandlerContext): Setting
     'settings.get': () => settings.get(),
 
     'settings.update': (change) => settings.update(change),
+
+    // restoreArchive keeps the replaced folder under this name, stamped with the UTC time of the restore.
+    'settings.dataFolder': () => ({ path: context.dataDirectory, keptAs: `${context.dataDirectory}.before-restore-<date and time>` }),
 
     'settings.backup': async () => {
       const now = new Date();

@@ -1,16 +1,16 @@
 import { OUTCOME_WORDS } from '../../inspection/runOutcome.js';
 import type { DecisionRecordInput, QualityEstimate, QualityLevel } from '../input/decisionRecordInput.js';
-import { formatCount, formatFixed, formatNumber } from '../../engine/index.js';
+import { formatCount, formatFixed, formatNumber, formatPercent, formatQuality, formatQualityInterval } from '../../engine/index.js';
 import { formatTimestamp } from './formatTimestamp.js';
 import type { RecordLayout } from './recordLayout.js';
 import { stateHeadline } from './titleBlock.js';
 
 function hypothesis(name: string, level: QualityLevel): string {
-  return `${name}: ${level.symbol} = ${formatNumber(level.value)} ${level.unit}`;
+  return `${name}: ${level.symbol} = ${formatQuality(level.value, level.unit)}`;
 }
 
 function risk(nominal: number, exact: number | null): string {
-  return `${formatNumber(nominal)} nominal; ${exact === null ? 'exact value not computed' : `${formatNumber(exact)} exact for the plan as run`}`;
+  return `${formatPercent(nominal)} nominal; ${exact === null ? 'exact value not computed' : `${formatPercent(exact)} exact for the plan as run`}`;
 }
 
 /** Source, part, characteristic, lot, inspectors and times. */
@@ -63,13 +63,13 @@ function estimateRows(estimate: QualityEstimate | null): Array<[string, string]>
   if (estimate === null) return [['Quality estimate', 'none yet: no items inspected']];
   const named = estimate.pointEstimateName === undefined ? '' : `${estimate.pointEstimateName} `;
   const naive =
-    (estimate.naiveEstimate === undefined ? '' : `\nnaive d/n = ${formatNumber(estimate.naiveEstimate)}, for comparison only (biased after a sequential stop)`) +
+    (estimate.naiveEstimate === undefined ? '' : `\nnaive d/n = ${formatQuality(estimate.naiveEstimate, estimate.unit)}, for comparison only (biased after a sequential stop)`) +
     (estimate.detail === undefined ? '' : `\n${estimate.detail}`);
   return [
     [
       'Quality estimate',
-      `${named}${formatNumber(estimate.pointEstimate)} ${estimate.unit}; ${formatNumber(estimate.confidenceLevel * 100, 3)} % confidence interval ` +
-        `${formatNumber(estimate.lower)} to ${Number.isFinite(estimate.upper) ? formatNumber(estimate.upper) : 'no upper limit'}${naive}`,
+      `${named}${formatQuality(estimate.pointEstimate, estimate.unit)}; ${formatNumber(estimate.confidenceLevel * 100, 3)} % confidence interval ` +
+        `${formatQualityInterval(estimate.lower, estimate.upper, estimate.unit)}${naive}`,
     ],
     ['Estimation method', estimate.methodName],
   ];

@@ -29,7 +29,7 @@ const inspectorKey = 'tallyline.inspect.inspector';
 /** The inspector's typing for the next entry; kept across refusals so nothing typed is lost. */
 class EntryDraft {
   itemId = $state('');
-  /** The scan ended with Enter: a main-keyboard minus now records instead of typing a hyphen. */
+  /** The scan ended with Enter (shown beside the field). */
   scanEnded = $state(false);
   category = $state('');
   note = $state('');
@@ -83,6 +83,8 @@ class StartDraft {
 }
 
 const activeRunKey = 'tallyline.inspect.activeRun';
+/** How often a run held by another program is checked (a lock-file read on the main side). */
+const holdPollMilliseconds = 1500;
 
 export class InspectSession {
   runs = $state.raw<RunRow[]>([]);
@@ -94,10 +96,14 @@ export class InspectSession {
   /** A refusal of something other than an entry (void, override, opening). */
   problem = $state<string | null>(null);
   opening = $state(false);
+  /** The run last left with "All runs": its line in the list takes the focus. */
+  lastLeftRunId = $state<string | null>(null);
   readonly draft = new EntryDraft();
   readonly startDraft = new StartDraft();
 
   private chain: Promise<unknown> = Promise.resolve();
+  /** Polls, while another program holds the active run, for the moment it lets go. */
+  private holdWatch: ReturnType<typeof setInterval> | null = null;
   private nextKey = 1;
 
   /** The run this window was showing before a reload, if any. */
@@ -122,6 +128,30 @@ export class InspectSession {
     this.pending = [];
     this.problem = null;
     sessionStorage.setItem(activeRunKey, view.run.id);
+    this.watchHold(view);
+  }
+
+  /**
+   * A run shown read-only only because another program (a command-line `feed`) holds it is opened
+   * again for writing as soon as that program lets go. The check reads one small lock file.
+   */
+  private watchHold(view: InspectionRunView): void {
+    this.stopWatch();
+    if (view.writable || view.problems.length > 0) return;
+    const runId = view.run.id;
+    this.holdWatch = setInterval(async () => {
+      const answer = await request('inspection.held', { runId });
+      if (this.view?.run.id !== runId || this.holdWatch === null) return;
+      if (answer.ok && !answer.value.held) {
+        this.stopWatch();
+        await this.open(runId);
+      }
+    }, holdPollMilliseconds);
+  }
+
+  private stopWatch(): void {
+    if (this.holdWatch !== null) clearInterval(this.holdWatch);
+    this.holdWatch = null;
   }
 
   async open(runId: string): Promise<void> {
@@ -138,6 +168,8 @@ export class InspectSession {
 
   /** Leaves the active run (it stays as it is on disk) and goes back to the list. */
   leave(): void {
+    this.lastLeftRunId = this.view?.run.id ?? null;
+    this.stopWatch();
     this.view = null;
     this.entries = [];
     this.pending = [];

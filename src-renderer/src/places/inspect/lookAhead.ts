@@ -4,6 +4,7 @@
  * accepting and the evidence still expected.
  */
 import type { InspectionLive } from '../../../../src-main/api/channels/inspectionChannels';
+import { countOf } from '../../lib/words';
 import type { LinearCountLiveState } from '../../../../src-main/engine/index';
 import { figure } from '../../lib/format';
 import type { ModelWords } from './modelWords';
@@ -37,7 +38,7 @@ function linearLookAhead(live: LinearCountLiveState, words: ModelWords): LookAhe
     open && live.itemsToEarliestReject !== null
       ? live.itemsToEarliestReject === 1
         ? `on the next ${one}`
-        : `within the next ${live.itemsToEarliestReject} ${words.items}`
+        : `within the next ${countOf(live.itemsToEarliestReject, words.items)}`
       : undefined;
   return {
     cells: [

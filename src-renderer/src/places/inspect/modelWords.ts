@@ -1,5 +1,6 @@
 /** The words and quality labels the Inspect place uses for a plan's model. */
 import type { PlanSpec } from '../../../../src-main/engine/index';
+import { percentText } from '../../lib/percent';
 
 export interface ModelWords {
   /** What one entry counts: "items", "units", "measurements" or "readings". */
@@ -13,10 +14,7 @@ export interface ModelWords {
   readonly h1: string;
 }
 
-/** A quality level without trailing zeros: 0.015 → "1.5 %". */
-function percent(fraction: number): string {
-  return `${Number((fraction * 100).toPrecision(6))} %`;
-}
+const percent = percentText;
 
 const plain = (value: number) => Number(value.toPrecision(6));
 

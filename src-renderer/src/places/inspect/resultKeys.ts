@@ -1,18 +1,21 @@
 /**
- * The result keys of the Inspect place, chosen for gloved hands and number pads: "+" (the tall key
- * of the number pad, or + on the main keys) takes a passing item, "−" (the number pad's minus, or
- * the main minus once a scan has ended) a nonconforming one. On a count plan "+" takes a clean unit.
+ * The result keys of the Inspect place, chosen for gloved hands and number pads.
  *
- * A barcode scanner types like a keyboard and ends its scan with Enter. Item ids may hold hyphens,
- * so a main-keyboard minus typed into an unfinished id stays part of the id; the number pad's minus
- * never does. A "+" in an item id cannot be typed here: say so where the keys are explained.
+ * The rule, as the screen and the README state it:
+ * - the number pad's + records a passing item and its − a nonconforming one, wherever the focus is
+ *   except in Category, Note and the other text fields (the Item id field included: a scanner never
+ *   types the number pad's keys, so they cannot be part of an id);
+ * - the main keyboard's + and - record only when no field has the focus; in the Item id field they
+ *   type, so ids may hold hyphens;
+ * - Enter in Item id ends a scan and records nothing.
+ * On a count plan + records a clean unit and − records nothing.
  */
 export const passKey = { label: '+', spoken: 'plus' } as const;
 export const failKey = { label: '−', spoken: 'minus' } as const;
 
 export type KeyedResult = 'pass' | 'fail';
 
-/** Where the key was pressed: the item id field, another text field, or anywhere else on the screen. */
+/** Where the key was pressed: the item id (or count) field, another text field, or no field at all. */
 export type KeyTarget = 'item-id' | 'text' | 'elsewhere';
 
 export interface KeyPress {
@@ -23,14 +26,13 @@ export interface KeyPress {
   readonly metaKey?: boolean;
 }
 
-/**
- * The result a key press records, or null when the key belongs to typing.
- * `scanOpen`: the item id field holds text whose scan has not ended with Enter yet.
- */
-export function resultOfKey(press: KeyPress, target: KeyTarget, scanOpen: boolean): KeyedResult | null {
+/** The result a key press records, or null when the key belongs to typing (or to nothing). */
+export function resultOfKey(press: KeyPress, target: KeyTarget): KeyedResult | null {
   if (target === 'text' || press.ctrlKey || press.altKey || press.metaKey) return null;
-  if (press.key === '+' || press.code === 'NumpadAdd') return 'pass';
+  if (press.code === 'NumpadAdd') return 'pass';
   if (press.code === 'NumpadSubtract') return 'fail';
-  if (press.key === '-' && !(target === 'item-id' && scanOpen)) return 'fail';
+  if (target === 'item-id') return null;
+  if (press.key === '+') return 'pass';
+  if (press.key === '-' || press.key === '−') return 'fail';
   return null;
 }

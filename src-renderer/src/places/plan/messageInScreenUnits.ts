@@ -14,6 +14,10 @@ function percent(fraction: number): string {
 export function messageInScreenUnits(message: string, model: PlanSpec['model']): string {
   let rewritten = message;
   for (const name of percentNames(model)) {
+    // "p1 must be a number in (0, 1) (got 1)": the value typed was 100 %, so the answer says 100 %.
+    if (rewritten.startsWith(`${name} must be`)) {
+      rewritten = rewritten.replace(/\(got (-?[0-9.]+(?:e-?[0-9]+)?)\)$/, (_, value: string) => `(got ${percent(Number(value))})`);
+    }
     rewritten = rewritten.replace(new RegExp(`\\b${name} = (-?[0-9.]+(?:e-?[0-9]+)?)`, 'g'), (_, value: string) => `${name} = ${percent(Number(value))}`);
   }
   return rewritten.replace('a number in (0, 1)', 'above 0 % and below 100 %').replace('alpha + beta must be less than 1', 'alpha + beta must be less than 100 %');

@@ -42,6 +42,22 @@ export function fieldOfProblem(model: ModelName, parameter: string): DraftField 
   return fieldOfParameter[parameter] ?? (parameter as DraftField);
 }
 
+/** The typed form as plain data, as kept between visits and reloads. */
+export interface PlanDraftTexts {
+  name: string;
+  model: ModelName;
+  countUnit: CountUnit;
+  quality: { passfail: { acceptable: string; rejectable: string }; count: { acceptable: string; rejectable: string } };
+  measurement: MeasurementTexts;
+  lifetime: LifetimeTexts;
+  grades: GradeRow[];
+  producerRisk: string;
+  consumerRisk: string;
+  truncationMode: TruncationMode;
+  truncationItems: string;
+  fit: FitMode;
+}
+
 export class PlanDraft {
   /** The name the plan is saved under. */
   name = $state('');
@@ -63,6 +79,29 @@ export class PlanDraft {
   fit = $state<FitMode>('wald');
 
   readonly scale = $derived(qualityScale(this.model, this.countUnit));
+
+  /** Everything typed, as plain data (reading it tracks every field). */
+  snapshot(): PlanDraftTexts {
+    return {
+      name: this.name,
+      model: this.model,
+      countUnit: this.countUnit,
+      quality: $state.snapshot(this.quality),
+      measurement: $state.snapshot(this.measurement),
+      lifetime: $state.snapshot(this.lifetime),
+      grades: $state.snapshot(this.grades),
+      producerRisk: this.producerRisk,
+      consumerRisk: this.consumerRisk,
+      truncationMode: this.truncationMode,
+      truncationItems: this.truncationItems,
+      fit: this.fit,
+    };
+  }
+
+  /** Puts back what `snapshot` took. */
+  restore(texts: PlanDraftTexts): void {
+    Object.assign(this, texts);
+  }
   readonly reading: DraftReading = $derived(this.read());
 
   /** Changes the count unit and rewrites the typed rates so they keep their meaning. */

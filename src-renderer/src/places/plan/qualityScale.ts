@@ -2,6 +2,7 @@
  * How quality is written for each data model: pass/fail as percent nonconforming, counts as
  * nonconformities per unit or per 100 units. The engine always takes fractions and rates per unit.
  */
+import { percentText } from '../../lib/percent';
 import type { PlanSpec } from '../../../../src-main/engine/index';
 
 export type ModelName = PlanSpec['model'];
@@ -42,6 +43,7 @@ export function qualityScale(model: ModelName, countUnit: CountUnit): QualitySca
 
 /** A quality level in the practitioner's unit, with sensible digits. */
 export function qualityText(value: number, scale: QualityScale): string {
+  if (scale.short === '%') return percentText(value);
   const shown = value * scale.factor;
   const digits = shown >= 10 ? 1 : shown >= 1 ? 2 : 3;
   const text = Number(shown.toFixed(digits)).toString();
