@@ -1,6 +1,7 @@
 import type { Page } from '@playwright/test';
 import { linearCountLiveState, type LinearCountLiveState, type LinearCountSpec } from '../../src-main/engine/index.js';
-import { expect, test, type RunningHost } from './support/browserHostFixture.js';
+import { expect, test } from './support/browserHostFixture.js';
+import { savePlanThroughChannel as savePlan, startRunOnScreen as startRun } from './support/runSteps.js';
 import { percentText } from '../../src-renderer/src/lib/percent.js';
 import { ruleText } from '../../src-renderer/src/lib/words.js';
 
@@ -8,27 +9,6 @@ import { ruleText } from '../../src-renderer/src/lib/words.js';
 // (inputs (from memory), NIST/SEMATECH e-Handbook §6.2.6 (first-hand)). Expected screen values are the engine's own linearCountLiveState,
 // computed here on the same (n, total) as the run: the screen must show what the engine says.
 const spec: LinearCountSpec = { model: 'passfail', p0: 0.01, p1: 0.1, alpha: 0.05, beta: 0.1 };
-
-/** Saves a plan under a new source through the plan channel, as the Plan place would. */
-async function savePlan(page: Page, host: RunningHost, planSpec: LinearCountSpec, name: string): Promise<void> {
-  const response = await page.request.post(`${host.origin}/api/plan.save`, {
-    headers: { authorization: `Bearer ${host.token}` },
-    data: { name, source: { name: 'Acme Castings', kind: 'supplier' }, spec: planSpec },
-  });
-  expect(response.status()).toBe(200);
-  expect(await response.json()).toMatchObject({ ok: true });
-}
-
-async function startRun(page: Page, host: RunningHost, lot: string): Promise<void> {
-  await page.goto(host.url);
-  await page.getByRole('button', { name: 'Inspect', exact: true }).click();
-  await expect(page.getByTestId('start-plan')).not.toHaveValue('');
-  await page.getByTestId('start-lot').fill(lot);
-  await page.getByTestId('start-lot-size').fill('800');
-  await page.getByTestId('start-inspector').fill('Ana Ruiz');
-  await page.getByTestId('start-submit').click();
-  await expect(page.getByTestId('run-lot')).toHaveText(lot);
-}
 
 /** The banner and the next numbers show exactly the engine's live state. */
 async function expectEngineNumbers(page: Page, live: LinearCountLiveState): Promise<void> {

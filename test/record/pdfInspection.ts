@@ -3,6 +3,7 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { expect } from 'vitest';
 
 export const ARTIFACT_DIRECTORY = fileURLToPath(new URL('../artifacts/record/', import.meta.url));
 
@@ -102,4 +103,12 @@ export function renderPageToPng(pdf: Uint8Array, name: string, pageNumber: numbe
   const prefix = join(ARTIFACT_DIRECTORY, `${name}-page-${pageNumber}`);
   execFileSync('pdftoppm', ['-png', '-r', String(resolution), '-f', String(pageNumber), '-l', String(pageNumber), '-singlefile', pdfPath, prefix]);
   return `${prefix}.png`;
+}
+
+/** The review line and the cautions every decision record prints, whatever its run. */
+export function expectReviewAndCautions(text: string): void {
+  expect(text).toMatch(/Reviewed by .*Date/);
+  expect(text).toContain('The decision rests on the stated risks');
+  expect(text).toContain('An accepted lot is not guaranteed to be free of nonconforming items.');
+  expect(text).toContain("Safety-critical characteristics follow the contract, the applicable standards and the organisation's quality system");
 }
