@@ -16,18 +16,17 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readFile, readdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import type { z } from 'zod';
-import { RunReplay } from '../inspection/index.js';
+import { readRunBytes } from '../inspection/index.js';
 import {
   anchorFileBytes,
   anchorPathFor,
   liveLockOwner,
   planVersionSchema,
-  readAnchoredJournal,
+  readAnchorBytes,
   settingsSchema,
   sourceSchema,
   syncFolder,
   writeFileAtomic,
-  type JournalEntry,
 } from '../store/index.js';
 import { ArchiveRefusedError, RestoreBlockedError } from './archiveFormat.js';
 import { unpackArchive, type ArchivedFile } from './readArchive.js';
@@ -153,10 +152,12 @@ async function checkWritten(staging: string, files: readonly ArchivedFile[]): Pr
 async function checkJournal(file: ArchivedFile, onDisk: string): Promise<boolean> {
   const recorded = file.journal;
   if (recorded === undefined) throw new ArchiveRefusedError(`the manifest has no chain check for the journal "${file.path}"`);
-  const read = await readAnchoredJournal(onDisk);
-  const chainProblems = read.problems.filter((problem) => problem !== read.anchor.problem);
+  // The catalogue's one reading of a run: chain, anchor and replay of the entries.
+  const read = readRunBytes(path.basename(onDisk, '.journal'), await readFile(onDisk), await readAnchorBytes(onDisk));
+  const anchor = read.anchor!;
+  const chainProblems = read.problems.filter((problem) => problem !== anchor.problem && problem !== read.replayProblem);
   const chainOk = chainProblems.length === 0;
-  if (chainOk !== recorded.ok || read.entries.length !== recorded.entries || read.fingerprint !== recorded.fingerprint) {
+  if (chainOk !== recorded.ok || read.entriesRead !== recorded.entries || read.fingerprint !== recorded.fingerprint) {
     const problem = chainProblems[0];
     throw new ArchiveRefusedError(
       `the journal "${file.path}" does not verify as it did at backup` +
@@ -164,44 +165,23 @@ async function checkJournal(file: ArchivedFile, onDisk: string): Promise<boolean
     );
   }
   const anchorAtBackup = recorded.anchor?.status ?? 'missing';
-  if (read.anchor.status !== anchorAtBackup || (read.anchor.anchor?.seq ?? null) !== (recorded.anchor?.seq ?? null)) {
-    const problem = read.anchor.problem;
+  if (anchor.status !== anchorAtBackup || (anchor.anchor?.seq ?? null) !== (recorded.anchor?.seq ?? null)) {
+    const problem = anchor.problem;
     throw new ArchiveRefusedError(
-      `the journal "${file.path}" does not stand against its anchor as it did at backup (${anchorAtBackup} then, ${read.anchor.status} now` +
+      `the journal "${file.path}" does not stand against its anchor as it did at backup (${anchorAtBackup} then, ${anchor.status} now` +
         (problem ? `; seq ${problem.seq}: ${problem.problem})` : ')'),
     );
   }
-  if (!chainOk || read.anchor.problem !== null) return true;
-  const replayProblem = firstReplayProblem(read.entries);
-  if (replayProblem !== null) {
-    throw new ArchiveRefusedError(`the journal "${file.path}" does not replay: seq ${replayProblem.seq}: ${replayProblem.message}`);
+  if (!chainOk || anchor.problem !== null) return true;
+  if (read.replayProblem !== null) {
+    throw new ArchiveRefusedError(`the journal "${file.path}" does not replay: seq ${read.replayProblem.seq}: ${read.replayProblem.detail}`);
   }
-  if (read.anchor.status !== 'anchored' && read.fingerprint !== null) {
+  if (anchor.status !== 'anchored' && read.fingerprint !== null) {
     // Checked against the manifest's fingerprint above: that record is the anchor this journal had.
-    await writeFileAtomic(anchorPathFor(onDisk), anchorFileBytes({ seq: read.entries.length - 1, fingerprint: read.fingerprint }));
+    await writeFileAtomic(anchorPathFor(onDisk), anchorFileBytes({ seq: read.entriesRead - 1, fingerprint: read.fingerprint }));
   }
   return false;
 }
-
-/** The first entry the run service's replay refuses, or null when the whole journal replays. */
-function firstReplayProblem(entries: readonly JournalEntry[]): { seq: number; message: string } | null {
-  let replay: RunReplay;
-  try {
-    replay = RunReplay.fromEntries(entries.slice(0, 1));
-  } catch (error) {
-    return { seq: 0, message: withoutSeq(error) };
-  }
-  for (const entry of entries.slice(1)) {
-    try {
-      replay.apply(entry);
-    } catch (error) {
-      return { seq: entry.seq, message: withoutSeq(error) };
-    }
-  }
-  return null;
-}
-
-const withoutSeq = (error: unknown): string => (error as Error).message.replace(/^run journal entry \d+: /, '');
 
 /** A run whose lock names a live process is being written: swapping the folder under it would lose entries. */
 async function refuseWhileRunsAreOpen(dataDirectory: string): Promise<void> {

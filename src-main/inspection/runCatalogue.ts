@@ -84,6 +84,8 @@ export interface RunRead {
   readonly problems: readonly JournalProblem[];
   /** How the journal stands against its anchor file; null when the read was not given the anchor. */
   readonly anchor: AnchorCheck | null;
+  /** The first entry of the good prefix that does not replay (also among `problems`), or null. */
+  readonly replayProblem: (JournalProblem & { readonly detail: string }) | null;
   /** The replay of the good prefix; null when not even the header can be read. */
   readonly replay: RunReplay | null;
   readonly damage: RunDamage | null;
@@ -203,7 +205,7 @@ export function readRunBytes(runId: string, bytes: Buffer, anchorFile?: Buffer |
   }
 
   let replay: RunReplay | null = null;
-  let contentError: RunJournalContentError | null = null;
+  let replayProblem: (JournalProblem & { readonly detail: string }) | null = null;
   const history: DecisionEvent[] = [];
   const entries: JournalEntry[] = [];
   try {
@@ -216,18 +218,18 @@ export function readRunBytes(runId: string, bytes: Buffer, anchorFile?: Buffer |
     }
   } catch (error) {
     if (!(error instanceof RunJournalContentError)) throw error;
-    contentError = error;
-    problems.push({ seq: error.seq, line: error.seq + 1, problem: error.message, kind: 'tampered' });
+    replayProblem = { seq: error.seq, line: error.seq + 1, problem: error.message, kind: 'tampered', detail: error.detail };
+    problems.push(replayProblem);
     problems.sort((a, b) => a.line - b.line);
   }
-  if (replay === null && contentError === null && prefix.length === 0) {
+  if (replay === null && replayProblem === null && prefix.length === 0) {
     const problem = analysis.entries.length === 0 ? 'the journal holds no entry' : 'entry 0 (the header) is missing';
     if (!problems.some((found) => found.kind === 'tampered')) problems.unshift({ seq: 0, line: 1, problem, kind: 'tampered' });
   }
 
   const firstTampered = problems.filter((problem) => problem.kind === 'tampered').sort((a, b) => a.seq - b.seq)[0];
   const damage: RunDamage | null = firstTampered === undefined ? null : { firstBadSeq: firstTampered.seq, problem: firstTampered.problem };
-  return { runId, entries, entriesRead: analysis.entries.length, fingerprint: analysis.fingerprint, problems, anchor, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
+  return { runId, entries, entriesRead: analysis.entries.length, fingerprint: analysis.fingerprint, problems, anchor, replayProblem, replay, damage, history, row: rowOf(runId, replay, entries, damage) };
 }
 
 function decisionEvent(entry: JournalEntry, replay: RunReplay): DecisionEvent | null {

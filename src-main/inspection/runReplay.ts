@@ -20,7 +20,11 @@ import { RunEvidence } from './runEvidence.js';
 
 export class RunJournalContentError extends Error {
   readonly code = 'RUN_JOURNAL_CONTENT';
-  constructor(readonly seq: number, detail: string) {
+  constructor(
+    readonly seq: number,
+    /** What is wrong with the entry, without the entry's number. */
+    readonly detail: string,
+  ) {
     super(`run journal entry ${seq}: ${detail}`);
     this.name = 'RunJournalContentError';
   }
