@@ -4,7 +4,7 @@
  * allowed range, which `runCommand` turns into one line on stderr and exit code 2.
  */
 import { z } from 'zod';
-import { NUMBER_TEXT } from '../engine/textFormat.js';
+import { NUMBER_TEXT } from '../engine/numberText.js';
 import { idSchema } from '../store/ids.js';
 import { noteText, SHORT_TEXT_LIMIT, shortText, visibleText } from '../store/textFields.js';
 

@@ -8,7 +8,7 @@
  */
 export { PlanParameterError } from './errors.js';
 export { countNoun, countOf } from './countWords.js';
-export { formatNumber, formatFixed, formatCount, withUnit, percentText, formatPercent, formatQuality, formatQualityInterval } from './numberText.js';
+export { formatNumber, formatFixed, formatCount, withUnit, percentText, formatPercent, formatQuality, formatQualityInterval, formatTable, NUMBER_TEXT } from './numberText.js';
 export type { PlanSpec, PassFailSpec, CountSpec, MeasurementSpec, LifetimeSpec, GradedSpec, LinearCountSpec, FitMode, ModelName, SpecOf } from './spec.js';
 
 // The one contract and its registry.
@@ -16,7 +16,6 @@ export type { SequentialModel, ModelShapes, ModelLabels, DesignOptions, Evidence
 export { frameHorizon, itemHorizon, MINIMUM_ITEM_HORIZON } from './models/sequentialModel.js';
 export { modelNames, modelLabels, modelFlags, planOf, checkPlanSpec, designPlan, estimatePlanWork } from './models/registry.js';
 export type { SequentialPlan, PlanDesign, DesignOf, EvidenceState, PlanLiveState, PlanFrame, LimitRowOf, Observation, Evidence } from './models/registry.js';
-export { formatTable, NUMBER_TEXT } from './textFormat.js';
 export type { RecordLines, RecordRow, RecordQuality, RecordPlanLines, RecordEvidenceLines, RecordEstimate, RecordChart, RecordPathPoint, ChartPoint } from './models/recordLines.js';
 export { linearCountPlanRows, type LinearCountPlanFigures } from './models/linearCountRecordLines.js';
 export type { LookAhead } from './lookAhead.js';

@@ -1,7 +1,7 @@
 /**
  * Numbers as a document prints them: significant digits without float noise, fixed decimals, and
- * whole counts with thin grouping. Used by the record lines and terminal text of every model, the
- * record and the CLI.
+ * whole counts with thin grouping; percent for people; plain-text tables; the decimal number a user
+ * types. Used by the record lines and terminal text of every model, the record and the CLI.
  */
 
 /**
@@ -65,3 +65,16 @@ function qualityFigure(value: number, unit: string): string {
 export function formatQualityInterval(lower: number, upper: number, unit: string): string {
   return `${qualityFigure(lower, unit)} to ${Number.isFinite(upper) ? qualityFigure(upper, unit) : 'no upper limit'}`;
 }
+
+/** Left-aligns the first column (labels) and right-aligns the others (numbers), two spaces apart. */
+export function formatTable(headers: readonly string[], rows: ReadonlyArray<readonly string[]>): string {
+  const widths = headers.map((header, column) =>
+    Math.max(header.length, ...rows.map((row) => (row[column] ?? '').length)),
+  );
+  const line = (cells: readonly string[]): string =>
+    cells.map((cell, column) => (column === 0 ? cell.padEnd(widths[column]) : cell.padStart(widths[column]))).join('  ').trimEnd();
+  return [line(headers), ...rows.map(line)].join('\n');
+}
+
+/** A decimal number as a user types it (sign, digits, point, exponent): what every number flag and input line accepts. */
+export const NUMBER_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;

@@ -5,7 +5,7 @@
 import { countOf } from '../countWords.js';
 import type { LimitRow, LinearCountDesign } from '../planDesignTypes.js';
 import type { LinearCountSpec } from '../spec.js';
-import { formatNumber, formatPercent, formatTable } from '../textFormat.js';
+import { formatNumber, formatPercent, formatTable } from '../numberText.js';
 import type { EvidenceDecision } from './sequentialModel.js';
 
 /** Collapses consecutive rows with equal numbers into ranges, as the handbook tables print them. */

@@ -2,7 +2,7 @@ import { gradedWork } from './gradedWork.js';
 import { gradedRecordLines } from './gradedRecordLines.js';
 import type { GradedSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
-import { formatNumber } from '../../textFormat.js';
+import { formatNumber } from '../../numberText.js';
 import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, risksFrom, truncationFrom } from '../commonPlanFlags.js';
 import { itemHorizon, withoutPassedTruncation, type EvidenceDecision, type PlanFlagReader, type SequentialModel } from '../sequentialModel.js';
 import { readableGradedPlan } from './gradedText.js';

@@ -1,6 +1,6 @@
 /** The readable design of a graded plan (`plan` without --json). */
 import type { GradedSpec } from '../../spec.js';
-import { formatNumber as f, formatTable } from '../../textFormat.js';
+import { formatNumber as f, formatTable } from '../../numberText.js';
 import type { GradedDesign } from './gradedDesign.js';
 
 export function readableGradedPlan(spec: GradedSpec, design: GradedDesign): string {

@@ -2,7 +2,7 @@ import { lifetimeWork } from './lifetimeWork.js';
 import { lifetimeRecordLines } from './lifetimeRecordLines.js';
 import type { LifetimeSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
-import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
+import { NUMBER_TEXT, formatNumber } from '../../numberText.js';
 import { RISK_FLAGS, RISK_USAGE, UNIT_FLAG, UNIT_USAGE, risksFrom, unitFrom } from '../commonPlanFlags.js';
 import { frameHorizon, type EntryText, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
 import { readableLifetimePlan } from './lifetimeText.js';

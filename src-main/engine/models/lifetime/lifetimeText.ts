@@ -1,7 +1,7 @@
 /** The readable design of a lifetime plan (`plan` without --json). */
 import { countOf } from '../../countWords.js';
 import type { LifetimeSpec } from '../../spec.js';
-import { formatNumber as f, formatPercent, formatTable } from '../../textFormat.js';
+import { formatNumber as f, formatPercent, formatTable } from '../../numberText.js';
 import type { LifetimeDesign } from './lifetimeDesign.js';
 
 export function readableLifetimePlan(spec: LifetimeSpec, design: LifetimeDesign): string {

@@ -3,7 +3,7 @@ import { measurementRecordLines } from './measurementRecordLines.js';
 import type { MeasurementSpec } from '../../spec.js';
 import { countOf } from '../../countWords.js';
 import { normalQuantile } from '../../numerics/normalDistribution.js';
-import { NUMBER_TEXT, formatNumber } from '../../textFormat.js';
+import { NUMBER_TEXT, formatNumber } from '../../numberText.js';
 import { RISK_FLAGS, RISK_USAGE, TRUNCATE_FLAG, TRUNCATE_USAGE, UNIT_FLAG, UNIT_USAGE, risksFrom, truncationFrom, unitFrom } from '../commonPlanFlags.js';
 import { itemHorizon, withoutPassedTruncation, type EvidenceDecision, type SequentialModel } from '../sequentialModel.js';
 import { readableMeasurementPlan } from './measurementText.js';

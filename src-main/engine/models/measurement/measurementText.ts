@@ -1,6 +1,6 @@
 /** The readable design of a measurement plan (`plan` without --json). */
 import type { MeasurementSpec } from '../../spec.js';
-import { formatNumber as f, formatTable } from '../../textFormat.js';
+import { formatNumber as f, formatTable } from '../../numberText.js';
 import type { MeasurementDesign } from './measurementDesign.js';
 
 export function readableMeasurementPlan(spec: MeasurementSpec, design: MeasurementDesign): string {
